@@ -1,0 +1,10 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    include: ['tests/**/*.test.{ts,tsx}'],
+    // Crash and lock tests start real child processes; keep the pool small on 2 cores.
+    maxWorkers: 2,
+    testTimeout: 20_000,
+  },
+});
