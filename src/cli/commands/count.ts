@@ -1,0 +1,94 @@
+import { existsSync } from 'node:fs';
+import { basename, extname, resolve } from 'node:path';
+import { ExineError, UsageError } from '../../errors.js';
+import { DEFAULT_KEYMAP, loadKeymap } from '../../keymap/load-keymap.js';
+import type { Keymap } from '../../keymap/keymap.js';
+import { DEFAULT_RULES, type RuleSet } from '../../rules/rule-set.js';
+import type { LevelInfo } from '../../session/events.js';
+import { createLevel, readLevel, resumeLevel, type OpenedLevel } from '../../session/session-files.js';
+import { HELP } from '../help.js';
+import { finiteNumber, parseFlags, positiveInteger } from '../parse-flags.js';
+
+const OPTIONS = {
+  keymap: { type: 'string' },
+  level: { type: 'string' },
+  depth: { type: 'string' },
+  site: { type: 'string' },
+  core: { type: 'string' },
+  slide: { type: 'string' },
+  analyst: { type: 'string' },
+  target: { type: 'string' },
+} as const;
+
+function sameKeymap(a: Keymap, b: Keymap): boolean {
+  return JSON.stringify(a) === JSON.stringify(b);
+}
+
+/** Details given on the command line must agree with those recorded in an existing file. */
+function checkAgainstRecorded(path: string, given: Partial<LevelInfo>, keymap: Keymap | null): void {
+  const { state } = readLevel(path);
+  for (const [field, value] of Object.entries(given)) {
+    if (value === undefined) continue;
+    const recorded = state.header[field as keyof LevelInfo];
+    if (recorded !== value) {
+      throw new UsageError(
+        `exine count: ${path} records ${field} ${JSON.stringify(recorded)}, not ${JSON.stringify(value)}; a level's details are fixed when it is created (leave out --${field} to resume)`,
+      );
+    }
+  }
+  if (keymap && !sameKeymap(keymap, state.keymap)) {
+    throw new UsageError(
+      `exine count: ${path} was counted with its own keymap "${state.keymap.name}"; resuming always uses that one (leave out --keymap)`,
+    );
+  }
+}
+
+export function requireTerminal(command: string): void {
+  if (!process.stdin.isTTY || typeof process.stdin.setRawMode !== 'function') {
+    throw new ExineError(`exine ${command}: needs an interactive terminal (standard input is not a TTY); run it in a terminal window`);
+  }
+}
+
+/** Open or create the level for counting; the caller runs the screen. */
+export function openForCounting(path: string, flags: Record<string, string | undefined>, check: () => void = () => {}): OpenedLevel {
+  const targetSum = positiveInteger('count', 'target', flags.target);
+  const depth = finiteNumber('count', 'depth', flags.depth);
+  const given: Partial<LevelInfo> = {
+    level: flags.level,
+    depth,
+    site: flags.site,
+    core: flags.core,
+    slide: flags.slide,
+    analyst: flags.analyst,
+  };
+  const rules: RuleSet | undefined = targetSum === undefined ? undefined : { ...DEFAULT_RULES, targetSum };
+  if (existsSync(path)) {
+    checkAgainstRecorded(path, given, flags.keymap ? loadKeymap(flags.keymap).keymap : null);
+    check();
+    return resumeLevel(path, { rules });
+  }
+  const { keymap } = loadKeymap(flags.keymap ?? DEFAULT_KEYMAP);
+  const info: LevelInfo = {
+    level: given.level ?? basename(path, extname(path)),
+    depth: depth ?? null,
+    site: given.site ?? null,
+    core: given.core ?? null,
+    slide: given.slide ?? null,
+    analyst: given.analyst ?? null,
+  };
+  check();
+  return createLevel(path, { info, keymap, rules: rules ?? DEFAULT_RULES });
+}
+
+export async function countCommand(args: string[]): Promise<number> {
+  const { values, positionals } = parseFlags('count', args, OPTIONS);
+  if (values.help) {
+    process.stdout.write(`${HELP.count}\n`);
+    return 0;
+  }
+  if (positionals.length !== 1) throw new UsageError('exine count: give one session FILE (see exine count --help)');
+  const path = resolve(positionals[0] as string);
+  const opened = openForCounting(path, values as Record<string, string | undefined>, () => requireTerminal('count'));
+  const { runCountScreen } = await import('../../screens/run-count-screen.js');
+  return runCountScreen(opened);
+}

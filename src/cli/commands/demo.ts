@@ -1,0 +1,29 @@
+import { copyFileSync, mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { UsageError } from '../../errors.js';
+import { HELP } from '../help.js';
+import { parseFlags } from '../parse-flags.js';
+import { openForCounting, requireTerminal } from './count.js';
+
+export const DEMO_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../../demo-sessions');
+export const DEMO_LEVEL = 'km1-084cm.jsonl';
+
+export async function demoCommand(args: string[]): Promise<number> {
+  const { values, positionals } = parseFlags('demo', args, {});
+  if (values.help) {
+    process.stdout.write(`${HELP.demo}\n`);
+    return 0;
+  }
+  if (positionals.length) throw new UsageError('exine demo: takes no arguments (see exine demo --help)');
+  requireTerminal('demo');
+  const dir = mkdtempSync(join(tmpdir(), 'exine-demo-'));
+  const copy = join(dir, DEMO_LEVEL);
+  copyFileSync(join(DEMO_DIR, DEMO_LEVEL), copy);
+  const opened = openForCounting(copy, {});
+  const { runCountScreen } = await import('../../screens/run-count-screen.js');
+  const code = await runCountScreen(opened);
+  process.stdout.write(`the demo copy stays in ${copy} (the bundled demo is unchanged)\n`);
+  return code;
+}

@@ -1,0 +1,43 @@
+import { existsSync } from 'node:fs';
+import { basename, resolve } from 'node:path';
+import { ExineError, UsageError } from '../../errors.js';
+import { toCsv } from '../../export/csv-text.js';
+import { LONG_COLUMNS, longRows, orderLevels, wideTable, type ExportLevel } from '../../export/level-export.js';
+import { writeFileAtomic } from '../../io/write-atomic.js';
+import { readLevel } from '../../session/session-files.js';
+import { HELP } from '../help.js';
+import { parseFlags } from '../parse-flags.js';
+
+const OPTIONS = {
+  format: { type: 'string', default: 'long' },
+  out: { type: 'string' },
+  force: { type: 'boolean', default: false },
+} as const;
+
+export function exportCommand(args: string[]): number {
+  const { values, positionals } = parseFlags('export', args, OPTIONS);
+  if (values.help) {
+    process.stdout.write(`${HELP.export}\n`);
+    return 0;
+  }
+  if (positionals.length === 0) throw new UsageError('exine export: give at least one session FILE (see exine export --help)');
+  if (values.format !== 'long' && values.format !== 'wide') {
+    throw new UsageError(`exine export: --format must be long or wide, not "${values.format}"`);
+  }
+  const out = values.out === undefined ? null : resolve(values.out);
+  if (out && existsSync(out) && !values.force) throw new ExineError(`${values.out} already exists; add --force to replace it`);
+  const levels: ExportLevel[] = positionals.map((file) => {
+    const { state, warnings } = readLevel(resolve(file));
+    for (const w of warnings) process.stderr.write(`exine: ${w}\n`);
+    return { state, source: basename(file) };
+  });
+  const csv =
+    values.format === 'wide'
+      ? (({ columns, rows }) => toCsv(columns, rows))(wideTable(levels))
+      : toCsv(LONG_COLUMNS, longRows(orderLevels(levels)));
+  if (out) {
+    writeFileAtomic(out, csv, values.force === true);
+    process.stderr.write(`exine: wrote ${levels.length} level${levels.length === 1 ? '' : 's'} to ${values.out}\n`);
+  } else process.stdout.write(csv);
+  return 0;
+}

@@ -1,0 +1,33 @@
+import { EXIT, ExineError, UsageError } from '../errors.js';
+import { MAIN_HELP } from './help.js';
+
+type Command = (args: string[]) => number | Promise<number>;
+
+// Loaded on demand: only count and demo pay for Ink and React.
+const COMMANDS: Readonly<Record<string, () => Promise<Command>>> = {
+  count: async () => (await import('./commands/count.js')).countCommand,
+  demo: async () => (await import('./commands/demo.js')).demoCommand,
+  summary: async () => (await import('./commands/summary.js')).summaryCommand,
+  export: async () => (await import('./commands/export.js')).exportCommand,
+  verify: async () => (await import('./commands/verify.js')).verifyCommand,
+  keys: async () => (await import('./commands/keys.js')).keysCommand,
+};
+
+export async function main(argv: string[]): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    process.stdout.write(`${MAIN_HELP}\n`);
+    return name === undefined ? EXIT.usage : EXIT.ok;
+  }
+  const load = COMMANDS[name];
+  try {
+    if (!load) throw new UsageError(`exine: unknown command "${name}" (commands: ${Object.keys(COMMANDS).join(', ')}; see exine --help)`);
+    return await (await load())(rest);
+  } catch (error) {
+    if (error instanceof ExineError) {
+      process.stderr.write(`${error.message.startsWith('exine') ? '' : 'exine: '}${error.message}\n`);
+      return error.exitCode;
+    }
+    throw error;
+  }
+}

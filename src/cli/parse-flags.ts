@@ -1,0 +1,29 @@
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { UsageError } from '../errors.js';
+
+type Options = NonNullable<ParseArgsConfig['options']>;
+
+/** node:util parseArgs in strict mode, with its errors turned into one-line usage errors. */
+export function parseFlags<O extends Options>(command: string, args: string[], options: O) {
+  try {
+    return parseArgs({ args, options: { ...options, help: { type: 'boolean', short: 'h' } }, allowPositionals: true, strict: true });
+  } catch (error) {
+    const message = (error as Error).message.replace(/\. To specify a positional argument.*$/s, '').replace(/^Unknown option/, 'unknown option');
+    throw new UsageError(`exine ${command}: ${message.charAt(0).toLowerCase()}${message.slice(1)} (see exine ${command} --help)`);
+  }
+}
+
+export function positiveInteger(command: string, flag: string, value: string | undefined): number | undefined {
+  if (value === undefined) return undefined;
+  if (!/^\d+$/.test(value) || Number(value) <= 0) {
+    throw new UsageError(`exine ${command}: --${flag} must be a whole number above 0, not "${value}"`);
+  }
+  return Number(value);
+}
+
+export function finiteNumber(command: string, flag: string, value: string | undefined): number | undefined {
+  if (value === undefined) return undefined;
+  const n = Number(value);
+  if (value.trim() === '' || !Number.isFinite(n)) throw new UsageError(`exine ${command}: --${flag} must be a number, not "${value}"`);
+  return n;
+}

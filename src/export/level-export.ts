@@ -1,0 +1,89 @@
+import { groupRank, type Group } from '../keymap/groups.js';
+import type { LevelState } from '../session/level-state.js';
+import { levelTable } from '../stats/level-table.js';
+import type { Cell } from './csv-text.js';
+
+export interface ExportLevel {
+  readonly state: LevelState;
+  /** Session file name, so each row can be traced to its source. */
+  readonly source: string;
+}
+
+const round = (value: number | null, places: number): number | null =>
+  value === null ? null : Number(value.toFixed(places));
+
+export const LONG_COLUMNS = [
+  'level',
+  'depth',
+  'site',
+  'core',
+  'slide',
+  'taxon',
+  'group',
+  'in_sum',
+  'count',
+  'percent',
+  'ci_low',
+  'ci_high',
+  'basis',
+  'pollen_sum',
+  'source',
+] as const;
+
+/** One row per level and taxon; percent of the pollen sum (or of sum + own group outside it), 95% Wilson limits. */
+export function longRows(levels: readonly ExportLevel[]): Cell[][] {
+  const rows: Cell[][] = [];
+  for (const { state, source } of levels) {
+    const h = state.header;
+    const table = levelTable(state);
+    for (const r of table.rows) {
+      rows.push([
+        h.level,
+        h.depth,
+        h.site,
+        h.core,
+        h.slide,
+        r.taxon,
+        r.group,
+        r.inSum ? 'yes' : 'no',
+        r.count,
+        round(r.percent, 4),
+        round(r.ciLow, 4),
+        round(r.ciHigh, 4),
+        r.basis,
+        table.pollenSum,
+        source,
+      ]);
+    }
+  }
+  return rows;
+}
+
+/** Levels in depth order when every level has a depth; otherwise in the order given. */
+export function orderLevels(levels: readonly ExportLevel[]): ExportLevel[] {
+  const all = [...levels];
+  if (all.every((l) => l.state.header.depth !== null)) {
+    all.sort((a, b) => (a.state.header.depth as number) - (b.state.header.depth as number));
+  }
+  return all;
+}
+
+/** One row per level, one count column per taxon; taxa ordered by group, then by first appearance. */
+export function wideTable(levels: readonly ExportLevel[]): { columns: string[]; rows: Cell[][] } {
+  const ordered = orderLevels(levels);
+  const taxa = new Map<string, { group: Group; first: number }>();
+  const tables = ordered.map((l) => levelTable(l.state));
+  for (const table of tables) {
+    for (const r of table.rows) if (!taxa.has(r.taxon)) taxa.set(r.taxon, { group: r.group, first: taxa.size });
+  }
+  const names = [...taxa.entries()]
+    .sort(([, a], [, b]) => groupRank(a.group) - groupRank(b.group) || a.first - b.first)
+    .map(([name]) => name);
+  const columns = ['level', 'depth', 'site', 'core', 'slide', 'pollen_sum', 'grains', ...names];
+  const rows = ordered.map((l, i): Cell[] => {
+    const h = l.state.header;
+    const table = tables[i] as (typeof tables)[number];
+    return [h.level, h.depth, h.site, h.core, h.slide, table.pollenSum, table.grains, ...names.map((t) => l.state.counts[t] ?? 0)];
+  });
+  return { columns, rows };
+}

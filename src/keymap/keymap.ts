@@ -1,0 +1,55 @@
+import type { Group } from './groups.js';
+
+export interface TaxonBinding {
+  readonly taxon: string;
+  readonly group: Group;
+}
+
+export const ACTION_NAMES = ['undo', 'traverse', 'note'] as const;
+export type ActionName = (typeof ACTION_NAMES)[number];
+
+/** Keys that are not printable characters, by the names a keymap file uses for them. */
+export const NAMED_KEYS = ['backspace', 'tab', 'enter', 'escape', 'space'] as const;
+export type NamedKey = (typeof NAMED_KEYS)[number];
+
+/** A single printable character (case-sensitive) or one of NAMED_KEYS. */
+export type KeyName = string;
+
+export interface Keymap {
+  readonly name: string;
+  /** Taxon keys in the order the file lists them: the screen and exports keep this order. */
+  readonly keys: Readonly<Record<string, TaxonBinding>>;
+  readonly actions: Readonly<Record<ActionName, KeyName>>;
+  /** Groups whose grains make up the pollen sum. */
+  readonly sum: readonly Group[];
+}
+
+export const DEFAULT_ACTIONS: Readonly<Record<ActionName, KeyName>> = {
+  undo: 'backspace',
+  traverse: 'tab',
+  note: 'enter',
+};
+
+export function keyLabel(key: KeyName): string {
+  switch (key) {
+    case 'backspace':
+      return 'Backspace';
+    case 'tab':
+      return 'Tab';
+    case 'enter':
+      return 'Enter';
+    case 'escape':
+      return 'Esc';
+    case 'space':
+      return 'Space';
+    default:
+      return key;
+  }
+}
+
+export function bindingForTaxon(keymap: Keymap, taxon: string): { key: string; binding: TaxonBinding } | undefined {
+  for (const [key, binding] of Object.entries(keymap.keys)) {
+    if (binding.taxon === taxon) return { key, binding };
+  }
+  return undefined;
+}

@@ -1,0 +1,47 @@
+import { readFileSync } from 'node:fs';
+import { basename, dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { ExineError } from '../errors.js';
+import type { Keymap } from './keymap.js';
+import { parseKeymap } from './parse-keymap.js';
+
+export const BUNDLED_KEYMAP_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../keymaps');
+export const DEFAULT_KEYMAP = 'temperate-lowland';
+
+/** A path, or the name of a bundled keymap ("keypad" finds keymaps/keypad.json). */
+export function resolveKeymapPath(nameOrPath: string): string {
+  if (/^[a-z0-9-]+$/.test(nameOrPath)) {
+    const bundled = join(BUNDLED_KEYMAP_DIR, `${nameOrPath}.json`);
+    try {
+      readFileSync(bundled);
+      return bundled;
+    } catch {
+      // not a bundled name: treat it as a path below
+    }
+  }
+  return resolve(nameOrPath);
+}
+
+export function isBundledKeymap(path: string): boolean {
+  return dirname(resolve(path)) === BUNDLED_KEYMAP_DIR;
+}
+
+export function loadKeymap(nameOrPath: string): { keymap: Keymap; path: string } {
+  const path = resolveKeymapPath(nameOrPath);
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    if (code === 'ENOENT') {
+      throw new ExineError(
+        `keymap ${nameOrPath}: no such file (bundled keymaps: see ${BUNDLED_KEYMAP_DIR})`,
+      );
+    }
+    throw new ExineError(`keymap ${nameOrPath}: cannot be read (${code ?? String(error)})`);
+  }
+  const shown = isBundledKeymap(path) ? `keymaps/${basename(path)}` : nameOrPath;
+  const result = parseKeymap(text, shown);
+  if (!result.ok) throw new ExineError(result.message);
+  return { keymap: result.keymap, path };
+}

@@ -1,0 +1,112 @@
+import { z } from 'zod';
+import { DEFAULT_SUM, GROUPS, isGroup, type Group } from './groups.js';
+import { parseStrictJson } from './json-source.js';
+import {
+  ACTION_NAMES,
+  DEFAULT_ACTIONS,
+  NAMED_KEYS,
+  type ActionName,
+  type Keymap,
+  type TaxonBinding,
+} from './keymap.js';
+import { describeIssue } from '../validation/describe-issue.js';
+
+const keymapShape = z.object({
+  name: z.string().trim().min(1),
+  keys: z.record(
+    z.string(),
+    z.object({ taxon: z.string().trim().min(1), group: z.string() }).loose(),
+  ),
+  actions: z.record(z.string(), z.string()).optional(),
+  sum: z.array(z.string()).optional(),
+}).loose();
+
+export type KeymapResult = { ok: true; keymap: Keymap } | { ok: false; message: string };
+
+/** A single printable character: one code point, not a control character. */
+export function isPrintableKey(key: string): boolean {
+  const points = [...key];
+  if (points.length !== 1) return false;
+  const code = key.codePointAt(0) ?? 0;
+  return code >= 0x20 && code !== 0x7f && !(code >= 0x80 && code < 0xa0);
+}
+
+function isActionKey(key: string): boolean {
+  return (NAMED_KEYS as readonly string[]).includes(key) || (isPrintableKey(key) && key !== ' ');
+}
+
+/** Parse and check a keymap file's text. `source` names the file in every message. */
+export function parseKeymap(text: string, source: string): KeymapResult {
+  const fail = (message: string): KeymapResult => ({ ok: false, message: `keymap ${source}: ${message}` });
+  const json = parseStrictJson(text);
+  if (!json.ok) return fail(json.message);
+  const dup = json.duplicates[0];
+  if (dup) {
+    if (dup.path.length === 1 && dup.path[0] === 'keys') {
+      return fail(`key "${dup.name}" is bound twice (lines ${dup.firstLine} and ${dup.line}); keep one`);
+    }
+    const where = dup.path.length ? ` in "${dup.path.join('.')}"` : '';
+    return fail(`field "${dup.name}" appears twice${where} (lines ${dup.firstLine} and ${dup.line}); keep one`);
+  }
+  return checkKeymapValue(json.value, source);
+}
+
+/** Check an already-parsed keymap value, e.g. the copy held in a session file. */
+export function checkKeymapValue(value: unknown, source: string): KeymapResult {
+  const fail = (message: string): KeymapResult => ({ ok: false, message: `keymap ${source}: ${message}` });
+  const shape = keymapShape.safeParse(value);
+  if (!shape.success) return fail(describeIssue(shape.error.issues[0]));
+  const raw = shape.data;
+
+  const keys: Record<string, TaxonBinding> = {};
+  const keyOfTaxon = new Map<string, string>();
+  for (const [key, binding] of Object.entries(raw.keys)) {
+    if (!isPrintableKey(key)) {
+      return fail(`key ${JSON.stringify(key)} must be a single printable character`);
+    }
+    if (!isGroup(binding.group)) {
+      return fail(
+        `key "${key}" has unknown group "${binding.group}" (expected one of ${GROUPS.join(', ')})`,
+      );
+    }
+    const taxon = binding.taxon.trim();
+    const other = keyOfTaxon.get(taxon);
+    if (other !== undefined) return fail(`taxon "${taxon}" is on two keys, "${other}" and "${key}"; keep one`);
+    keyOfTaxon.set(taxon, key);
+    keys[key] = { taxon, group: binding.group };
+  }
+  if (Object.keys(keys).length === 0) return fail('"keys" is empty; bind at least one taxon');
+
+  const actions: Record<ActionName, string> = { ...DEFAULT_ACTIONS };
+  for (const [name, key] of Object.entries(raw.actions ?? {})) {
+    if (!(ACTION_NAMES as readonly string[]).includes(name)) {
+      return fail(`unknown action "${name}" (expected one of ${ACTION_NAMES.join(', ')})`);
+    }
+    if (!isActionKey(key)) {
+      return fail(
+        `action "${name}" has key ${JSON.stringify(key)} (expected one printable character or one of ${NAMED_KEYS.join(', ')})`,
+      );
+    }
+    actions[name as ActionName] = key;
+  }
+  const actionOfKey = new Map<string, ActionName>();
+  for (const name of ACTION_NAMES) {
+    const key = actions[name];
+    const taxon = keys[key === 'space' ? ' ' : key];
+    if (taxon) return fail(`key "${key}" is bound to both taxon "${taxon.taxon}" and action "${name}"; pick one`);
+    const twin = actionOfKey.get(key);
+    if (twin) return fail(`key "${key}" is bound to both actions "${twin}" and "${name}"; pick one`);
+    actionOfKey.set(key, name);
+  }
+
+  let sum: Group[] = [...DEFAULT_SUM];
+  if (raw.sum) {
+    sum = [];
+    for (const group of raw.sum) {
+      if (!isGroup(group)) return fail(`"sum" lists unknown group "${group}" (expected one of ${GROUPS.join(', ')})`);
+      if (!sum.includes(group)) sum.push(group);
+    }
+    if (sum.length === 0) return fail('"sum" is empty; list the groups of the pollen sum');
+  }
+  return { ok: true, keymap: { name: raw.name.trim(), keys, actions, sum } };
+}

@@ -1,0 +1,141 @@
+import { checkKeymapValue } from '../keymap/parse-keymap.js';
+import type { Keymap } from '../keymap/keymap.js';
+import { FORMAT_VERSION } from '../session/events.js';
+import { describeIssue } from '../validation/describe-issue.js';
+import { KNOWN_EVENT_TYPES, parseEventObject, type ParsedEvent } from './event-schema.js';
+import { lineHashes } from './line-codec.js';
+
+export type Problem =
+  | 'torn'
+  | 'nul-padding'
+  | 'no-hash'
+  | 'hash-mismatch'
+  | 'not-json'
+  | 'seq'
+  | 'chain'
+  | 'bad-event'
+  | 'unknown-type'
+  | 'not-open'
+  | 'future-format'
+  | 'empty';
+
+export interface Damage {
+  /** 1-based line number where the damage starts. */
+  readonly line: number;
+  /** Byte offset where that line starts. */
+  readonly offset: number;
+  readonly problem: Problem;
+  /** What is wrong, in words, naming the line. */
+  readonly message: string;
+}
+
+export interface LogScan {
+  /** Events of the valid prefix, in order. */
+  readonly events: readonly ParsedEvent[];
+  /** Length in bytes of the valid prefix. */
+  readonly goodBytes: number;
+  readonly totalBytes: number;
+  /** Hash of the last valid line ("" when there is none). */
+  readonly lastHash: string;
+  /** The keymap recorded in line 1, when line 1 is valid. */
+  readonly keymap: Keymap | null;
+  /** Damage confined to the end of the file, which can be cut off safely. */
+  readonly tail: Damage | null;
+  /** Damage followed by good data, or an unreadable first line: never repaired automatically. */
+  readonly corruption: Damage | null;
+}
+
+type LineCheck = { ok: true; event: ParsedEvent; hash: string; keymap?: Keymap } | { ok: false; problem: Problem; message: string };
+
+function checkLine(bytes: Buffer, lineNo: number, prevHash: string): LineCheck {
+  const bad = (problem: Problem, message: string): LineCheck => ({ ok: false, problem, message: `line ${lineNo} ${message}` });
+  const hashes = lineHashes(bytes);
+  if (!hashes) return bad('no-hash', 'has no valid integrity field ("hash" at the end): it was edited or damaged');
+  if (hashes.claimed !== hashes.actual) return bad('hash-mismatch', 'does not match its hash: its content was changed after it was written');
+  let value: unknown;
+  try {
+    value = JSON.parse(bytes.toString('utf8'));
+  } catch {
+    return bad('not-json', 'is not valid JSON');
+  }
+  const record = value as Record<string, unknown>;
+  if (typeof record !== 'object' || record === null || Array.isArray(record)) return bad('not-json', 'is not a JSON object');
+  if (record.seq !== lineNo) {
+    return bad('seq', `has seq ${JSON.stringify(record.seq)} where ${lineNo} was expected: a line was deleted, inserted or moved`);
+  }
+  if (record.prev !== prevHash) {
+    return bad('chain', 'does not chain to the line before it: lines were reordered, removed or taken from another session');
+  }
+  if (lineNo === 1) {
+    if (record.type !== 'open') return bad('not-open', `is of type ${JSON.stringify(record.type)}; a session file starts with an "open" line`);
+    if (typeof record.format === 'number' && record.format > FORMAT_VERSION) {
+      return bad('future-format', `is session format ${record.format}, written by a newer exine (this one reads format ${FORMAT_VERSION}); update exine to open it`);
+    }
+  } else if (record.type === 'open') {
+    return bad('bad-event', 'is a second "open" line; only line 1 opens a level');
+  }
+  if (typeof record.type === 'string' && !KNOWN_EVENT_TYPES.has(record.type)) {
+    return bad('unknown-type', `has unknown event type ${JSON.stringify(record.type)}; it may come from a newer exine`);
+  }
+  const parsed = parseEventObject(value);
+  if (!parsed.ok) return bad('bad-event', `is not a valid event: ${describeIssue(parsed.issue)}`);
+  if (parsed.event.type === 'open') {
+    const keymap = checkKeymapValue(parsed.event.keymap, 'recorded in line 1');
+    if (!keymap.ok) return bad('bad-event', `holds an invalid keymap: ${keymap.message}`);
+    return { ok: true, event: parsed.event, hash: hashes.actual, keymap: keymap.keymap };
+  }
+  return { ok: true, event: parsed.event, hash: hashes.actual };
+}
+
+const PHYSICAL: ReadonlySet<Problem> = new Set(['no-hash', 'hash-mismatch', 'not-json']);
+
+function allNul(buf: Buffer, from: number, to: number): boolean {
+  for (let i = from; i < to; i++) if (buf[i] !== 0) return false;
+  return true;
+}
+
+/** Read a whole session file's bytes: validate every line and the chain, and classify any damage. */
+export function scanLog(buf: Buffer): LogScan {
+  const events: ParsedEvent[] = [];
+  let keymap: Keymap | null = null;
+  let lastHash = '';
+  let pos = 0;
+  let lineNo = 0;
+  const result = (tail: Damage | null, corruption: Damage | null): LogScan => ({
+    events,
+    goodBytes: pos,
+    totalBytes: buf.length,
+    lastHash,
+    keymap,
+    tail,
+    corruption,
+  });
+  if (buf.length === 0) {
+    return result(null, { line: 1, offset: 0, problem: 'empty', message: 'the file is empty: it holds no level' });
+  }
+  while (pos < buf.length) {
+    lineNo++;
+    const nl = buf.indexOf(0x0a, pos);
+    if (nl === -1) {
+      const nul = allNul(buf, pos, buf.length);
+      const damage: Damage = nul
+        ? { line: lineNo, offset: pos, problem: 'nul-padding', message: `NUL bytes after line ${lineNo - 1} (typical of a power cut)` }
+        : { line: lineNo, offset: pos, problem: 'torn', message: `line ${lineNo} is incomplete (the program stopped while writing it)` };
+      return lineNo === 1 ? result(null, { ...damage, message: `${damage.message}; the level was never created` }) : result(damage, null);
+    }
+    const check = checkLine(buf.subarray(pos, nl), lineNo, lastHash);
+    if (!check.ok) {
+      const damage: Damage = { line: lineNo, offset: pos, problem: check.problem, message: check.message };
+      const onlyPadding = allNul(buf, nl + 1, buf.length);
+      // Only physical damage of the very last line is cut off: a line whose own hash holds was
+      // written whole, so a wrong seq or chain there is an edit, not a crash.
+      const repairable = lineNo > 1 && onlyPadding && PHYSICAL.has(check.problem);
+      return repairable ? result(damage, null) : result(null, damage);
+    }
+    events.push(check.event);
+    if (check.keymap) keymap = check.keymap;
+    lastHash = check.hash;
+    pos = nl + 1;
+  }
+  return result(null, null);
+}

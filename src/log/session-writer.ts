@@ -1,0 +1,147 @@
+import * as fs from 'node:fs';
+import { dirname } from 'node:path';
+import { ExineError } from '../errors.js';
+import { fsyncDir } from '../io/fsync-dir.js';
+import type { EventPayload, SessionEvent } from '../session/events.js';
+import { encodeLine } from './line-codec.js';
+import type { SessionLock } from './session-lock.js';
+
+/** The file operations the writer uses; tests swap in ones that fail like a full disk. */
+export interface WriterFs {
+  writeSync(fd: number, buffer: Buffer, offset: number, length: number): number;
+  fsyncSync(fd: number): void;
+  ftruncateSync(fd: number, len: number): void;
+}
+
+export const nodeWriterFs: WriterFs = {
+  writeSync: (fd, buffer, offset, length) => fs.writeSync(fd, buffer, offset, length),
+  fsyncSync: (fd) => fs.fsyncSync(fd),
+  ftruncateSync: (fd, len) => fs.ftruncateSync(fd, len),
+};
+
+export type Clock = () => Date;
+
+export interface WriterOptions {
+  readonly ops?: WriterFs;
+  readonly clock?: Clock;
+}
+
+/** Why an event was not recorded. The session's state must not move. */
+export class AppendError extends ExineError {
+  constructor(
+    message: string,
+    readonly readOnlyNow: boolean,
+  ) {
+    super(message);
+  }
+}
+
+/**
+ * Appends events to one session file: one write of the whole line, then fsync,
+ * and only then does the caller see the event. Holds the file's lock.
+ */
+export class SessionWriter {
+  private readOnlyReason: string | null = null;
+  private closed = false;
+
+  private constructor(
+    readonly path: string,
+    private readonly fd: number,
+    private size: number,
+    private seq: number,
+    private lastHash: string,
+    private readonly lock: SessionLock,
+    private readonly ops: WriterFs,
+    private readonly clock: Clock,
+  ) {}
+
+  /** Create a new session file (never an existing one) and write its first line. */
+  static create(path: string, open: EventPayload, lock: SessionLock, options: WriterOptions = {}): { writer: SessionWriter; event: SessionEvent } {
+    let fd: number;
+    try {
+      fd = fs.openSync(path, 'wx');
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code;
+      throw new ExineError(
+        code === 'EEXIST' ? `${path} already exists` : `cannot create ${path}: ${(error as Error).message}`,
+      );
+    }
+    const writer = new SessionWriter(path, fd, 0, 0, '', lock, options.ops ?? nodeWriterFs, options.clock ?? (() => new Date()));
+    try {
+      const event = writer.append(open);
+      fsyncDir(dirname(path));
+      return { writer, event };
+    } catch (error) {
+      writer.close();
+      fs.rmSync(path, { force: true });
+      throw error;
+    }
+  }
+
+  /** Continue an existing, verified session file whose valid content is `size` bytes. */
+  static resume(path: string, size: number, lastSeq: number, lastHash: string, lock: SessionLock, options: WriterOptions = {}): SessionWriter {
+    const fd = fs.openSync(path, 'a');
+    return new SessionWriter(path, fd, size, lastSeq, lastHash, lock, options.ops ?? nodeWriterFs, options.clock ?? (() => new Date()));
+  }
+
+  get readOnly(): string | null {
+    return this.readOnlyReason;
+  }
+
+  get lastSeq(): number {
+    return this.seq;
+  }
+
+  /** Append one event durably and return it as written. Throws AppendError and records nothing on failure. */
+  append(payload: EventPayload): SessionEvent {
+    if (this.closed) throw new AppendError('the session is closed', true);
+    if (this.readOnlyReason) throw new AppendError(`the session is read-only: ${this.readOnlyReason}`, true);
+    const stamp = { seq: this.seq + 1, at: this.clock().toISOString() };
+    const { line, hash } = encodeLine(payload, stamp, this.lastHash);
+    const bytes = Buffer.from(`${line}\n`, 'utf8');
+    let written = 0;
+    try {
+      while (written < bytes.length) written += this.ops.writeSync(this.fd, bytes, written, bytes.length - written);
+    } catch (error) {
+      this.cutBack();
+      throw new AppendError(`not recorded: writing ${this.path} failed (${describe(error)}); nothing was counted`, this.readOnlyReason !== null);
+    }
+    try {
+      this.ops.fsyncSync(this.fd);
+    } catch (error) {
+      // A failed fsync is never retried: the kernel may have dropped the data it reported on.
+      this.readOnlyReason = `syncing ${this.path} to disk failed (${describe(error)})`;
+      throw new AppendError(`not confirmed on disk: ${this.readOnlyReason}; the session is now read-only`, true);
+    }
+    this.size += bytes.length;
+    this.seq = stamp.seq;
+    this.lastHash = hash;
+    return { ...payload, ...stamp } as SessionEvent;
+  }
+
+  private cutBack(): void {
+    try {
+      this.ops.ftruncateSync(this.fd, this.size);
+    } catch (error) {
+      this.readOnlyReason = `a failed write could not be cut back (${describe(error)})`;
+    }
+  }
+
+  /** Close the file and release the lock. Safe to call twice. */
+  close(): void {
+    if (this.closed) return;
+    this.closed = true;
+    try {
+      fs.closeSync(this.fd);
+    } finally {
+      this.lock.release();
+    }
+  }
+}
+
+function describe(error: unknown): string {
+  const e = error as NodeJS.ErrnoException;
+  if (e.code === 'ENOSPC') return 'the disk is full';
+  if (e.code === 'EDQUOT') return 'the disk quota is used up';
+  return e.code ?? e.message ?? String(error);
+}

@@ -1,0 +1,32 @@
+import type { LogScan } from './scan-log.js';
+
+export interface Verdict {
+  readonly intact: boolean;
+  /** One line for the person who asked. */
+  readonly summary: string;
+  readonly warnings: readonly string[];
+}
+
+/** Judge a scanned session file: any damage is a failure here, even the kind `count` may repair. */
+export function verdictOf(name: string, scan: LogScan): Verdict {
+  const damage = scan.corruption ?? scan.tail;
+  const warnings: string[] = [];
+  let previous = '';
+  for (const event of scan.events) {
+    if (previous && event.at < previous) {
+      warnings.push(`line ${event.seq}: time ${event.at} is earlier than the line before (${previous}); the clock was changed?`);
+    }
+    previous = event.at;
+  }
+  if (damage) {
+    const kept = scan.events.length;
+    return { intact: false, summary: `${name}: ${damage.message} (${kept} line${kept === 1 ? '' : 's'} before it are intact)`, warnings };
+  }
+  const last = scan.events[scan.events.length - 1];
+  const closed = last?.type === 'close' || last?.type === 'finish';
+  return {
+    intact: true,
+    summary: `${name}: intact, ${scan.events.length} lines, chain verified${closed ? '' : '; not closed cleanly (the last sitting was stopped or is still open)'}`,
+    warnings,
+  };
+}

@@ -1,0 +1,82 @@
+import { Box, Text, useApp, useInput, useStdout } from 'ink';
+import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
+import { splitKeys } from '../input/key-press.js';
+import { keyLabel } from '../keymap/keymap.js';
+import { formatDuration } from '../session/describe-event.js';
+import type { CountingSession } from '../session/counting-session.js';
+import { levelTable } from '../stats/level-table.js';
+import { RecentEvents } from './recent-events.js';
+import { SumPanel } from './sum-panel.js';
+import { themeFor } from './theme.js';
+import { TABLE_WIDTH, TotalsTable } from './totals-table.js';
+
+function useNow(intervalMs: number): number {
+  const [now, setNow] = useState(() => Date.now());
+  useEffect(() => {
+    const timer = setInterval(() => setNow(Date.now()), intervalMs);
+    timer.unref?.();
+    return () => clearInterval(timer);
+  }, [intervalMs]);
+  return now;
+}
+
+export interface CountScreenProps {
+  readonly session: CountingSession;
+  /** Terminal size; defaults to the real terminal's. */
+  readonly columns?: number;
+  readonly rows?: number;
+}
+
+export function CountScreen({ session, columns, rows }: CountScreenProps) {
+  const { exit } = useApp();
+  const { stdout } = useStdout();
+  const snapshot = useSyncExternalStore(session.subscribe, session.getSnapshot);
+  const { state } = snapshot;
+  const table = useMemo(() => levelTable(state), [state]);
+  const theme = themeFor();
+  const now = useNow(1000);
+
+  // Every key of a burst is applied in order against the session, never against a rendered value.
+  useInput((input, key) => {
+    if (session.pressAll(splitKeys(input, key)) === 'quit') {
+      session.shutdown();
+      exit();
+    }
+  });
+
+  const width = columns ?? stdout.columns ?? 80;
+  const height = Math.max(12, (rows ?? stdout.rows ?? 24) - 1);
+  const mainHeight = height - 4;
+  const sideWidth = Math.max(20, width - TABLE_WIDTH - 2);
+  const sideRoomForRecent = Math.max(2, mainHeight - 9);
+  const h = state.header;
+  const where = [h.site, h.core].filter(Boolean).join(' ');
+  const depth = h.depth === null ? '' : ` (${h.depth})`;
+  const a = state.keymap.actions;
+
+  return (
+    <Box flexDirection="column" width={width} height={height}>
+      <Text>
+        <Text bold color={theme.accent}>{`${where ? `${where} · ` : ''}level ${h.level}${depth}`}</Text>
+        {` · slide ${h.slide ?? '–'} · `}
+        <Text bold>{`traverse ${state.traverse}`}</Text>
+        {` · sitting ${state.sitting} ${formatDuration(now - Date.parse(state.sittingStartedAt))}`}
+      </Text>
+      <Box flexDirection="row" height={mainHeight} marginTop={1}>
+        <TotalsTable table={table} room={mainHeight - 1} theme={theme} />
+        <Box flexDirection="column" marginLeft={2} width={sideWidth}>
+          <SumPanel table={table} target={state.rules.targetSum} theme={theme} width={sideWidth} />
+          <Box marginTop={1}>
+            <RecentEvents events={state.recent} room={sideRoomForRecent} width={sideWidth} />
+          </Box>
+        </Box>
+      </Box>
+      <Text color={snapshot.message?.tone === 'error' ? theme.error : theme.warning} wrap="truncate-end">
+        {snapshot.readOnly ? `READ-ONLY: ${snapshot.readOnly}` : (snapshot.message?.text ?? ' ')}
+      </Text>
+      <Text dimColor={theme.dim} wrap="truncate-end">
+        {`${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} next traverse · Ctrl-C save and quit · * outside the pollen sum`}
+      </Text>
+    </Box>
+  );
+}

@@ -1,0 +1,28 @@
+import { Box, Text } from 'ink';
+import { GROUPS } from '../keymap/groups.js';
+import type { LevelTable } from '../stats/level-table.js';
+import { bar, fit, right } from '../text/cells.js';
+import type { Theme } from './theme.js';
+
+const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+export function SumPanel({ table, target, theme, width }: { table: LevelTable; target: number; theme: Theme; width: number }) {
+  const reached = table.pollenSum >= target;
+  const barWidth = Math.max(6, width - 7);
+  return (
+    <Box flexDirection="column" width={width}>
+      <Text bold>
+        {`Pollen sum ${table.pollenSum} / ${target}`}
+      </Text>
+      <Text color={reached ? theme.ok : theme.accent}>
+        {`${bar(table.pollenSum / target, barWidth)} ${right(`${Math.floor((100 * table.pollenSum) / target)}%`, 4)}`}
+      </Text>
+      {reached ? <Text color={theme.ok} bold>TARGET SUM REACHED</Text> : null}
+      {GROUPS.filter((g) => table.sumGroups.includes(g) || table.groupTotals[g] > 0).map((g) => (
+        <Text key={g}>
+          {`${fit(capital(g), 14)} ${right(String(table.groupTotals[g]), 5)}${table.sumGroups.includes(g) ? '' : ' *'}`}
+        </Text>
+      ))}
+    </Box>
+  );
+}

@@ -1,0 +1,54 @@
+import { Box, Text } from 'ink';
+import type { Group } from '../keymap/groups.js';
+import { keyLabel } from '../keymap/keymap.js';
+import type { LevelTable, TaxonRow } from '../stats/level-table.js';
+import { ci, fit, pct, right } from '../text/cells.js';
+import type { Theme } from './theme.js';
+
+const GROUP_SHORT: Readonly<Record<Group, string>> = {
+  trees: 'tree',
+  shrubs: 'shrub',
+  herbs: 'herb',
+  spores: 'spore',
+  aquatics: 'aquat',
+  markers: 'marker',
+  indeterminable: 'indet',
+  other: 'other',
+};
+
+export const TABLE_WIDTH = 56;
+
+/** Which rows fit: keep the keymap's order; drop uncounted rows from the end first. */
+export function visibleRows(rows: readonly TaxonRow[], room: number): { shown: TaxonRow[]; hidden: number } {
+  if (rows.length <= room) return { shown: [...rows], hidden: 0 };
+  const keep = Math.max(0, room - 1);
+  const counted = rows.filter((r) => r.count > 0);
+  let shown: TaxonRow[];
+  if (counted.length >= keep) shown = counted.slice(0, keep);
+  else {
+    let spare = keep - counted.length;
+    shown = rows.filter((r) => r.count > 0 || spare-- > 0);
+  }
+  return { shown, hidden: rows.length - shown.length };
+}
+
+function line(r: TaxonRow): string {
+  const key = r.key === null ? '' : keyLabel(r.key);
+  return `${fit(key, 3)} ${fit(r.taxon, 18)} ${fit(GROUP_SHORT[r.group], 6)} ${right(String(r.count), 5)} ${right(pct(r.percent), 5)}  ${ci(r.ciLow, r.ciHigh)}`;
+}
+
+export function TotalsTable({ table, room, theme }: { table: LevelTable; room: number; theme: Theme }) {
+  const { shown, hidden } = visibleRows(table.rows, room);
+  return (
+    <Box flexDirection="column" width={TABLE_WIDTH}>
+      <Text bold>{`${fit('Key', 3)} ${fit('Taxon', 18)} ${fit('Group', 6)} ${right('Count', 5)} ${right('%', 5)}  95% CI`}</Text>
+      {shown.map((r) => (
+        <Text key={r.taxon} color={r.count === 0 ? theme.zero : undefined}>
+          {line(r)}
+          {r.inSum ? '' : ' *'}
+        </Text>
+      ))}
+      {hidden > 0 ? <Text color={theme.zero}>{`… ${hidden} more taxa not shown (a taller terminal shows them)`}</Text> : null}
+    </Box>
+  );
+}

@@ -1,0 +1,104 @@
+import type { KeyPress } from '../input/key-press.js';
+import { resolveKey } from '../keymap/resolve-key.js';
+import { AppendError, type SessionWriter } from '../log/session-writer.js';
+import { decide } from './command-event.js';
+import type { EventPayload } from './events.js';
+import { applyEvent } from './fold.js';
+import type { LevelState } from './level-state.js';
+
+export type Tone = 'info' | 'warning' | 'error';
+
+export interface Snapshot {
+  readonly state: LevelState;
+  /** The latest message for the analyst, if any. */
+  readonly message: { readonly text: string; readonly tone: Tone } | null;
+  readonly readOnly: string | null;
+  readonly closed: boolean;
+}
+
+/**
+ * The live counting session: keys become events, each event is on disk before
+ * the state moves, and the screen renders the snapshot. Nothing else holds counts.
+ */
+export class CountingSession {
+  private snapshot: Snapshot;
+  private readonly listeners = new Set<() => void>();
+
+  constructor(
+    private readonly writer: SessionWriter,
+    state: LevelState,
+    notices: readonly string[] = [],
+  ) {
+    this.snapshot = {
+      state,
+      message: notices.length ? { text: notices.join(' · '), tone: 'warning' } : null,
+      readOnly: writer.readOnly,
+      closed: false,
+    };
+  }
+
+  readonly subscribe = (listener: () => void): (() => void) => {
+    this.listeners.add(listener);
+    return () => this.listeners.delete(listener);
+  };
+
+  readonly getSnapshot = (): Snapshot => this.snapshot;
+
+  get path(): string {
+    return this.writer.path;
+  }
+
+  private publish(next: Partial<Snapshot>): void {
+    this.snapshot = { ...this.snapshot, ...next, readOnly: this.writer.readOnly };
+    for (const listener of this.listeners) listener();
+  }
+
+  /** Handle keys in order. Returns 'quit' when one of them asked to leave (the rest are not applied). */
+  pressAll(keys: readonly KeyPress[]): 'quit' | undefined {
+    for (const key of keys) if (this.press(key) === 'quit') return 'quit';
+    return undefined;
+  }
+
+  press(key: KeyPress): 'quit' | undefined {
+    const decision = decide(this.snapshot.state, resolveKey(this.snapshot.state.keymap, key));
+    switch (decision.kind) {
+      case 'record':
+        this.record(decision.payload);
+        return undefined;
+      case 'say':
+        this.publish({ message: { text: decision.message, tone: 'info' } });
+        return undefined;
+      case 'quit':
+        return 'quit';
+      case 'nothing':
+        return undefined;
+    }
+  }
+
+  /** Append one event and, only once it is on disk, move the state. */
+  record(payload: EventPayload): boolean {
+    if (this.snapshot.closed) return false;
+    try {
+      const event = this.writer.append(payload);
+      this.publish({ state: applyEvent(this.snapshot.state, event), message: null });
+      return true;
+    } catch (error) {
+      if (!(error instanceof AppendError)) throw error;
+      this.publish({ message: { text: error.message, tone: 'error' } });
+      return false;
+    }
+  }
+
+  /** Record the end of the sitting and release the file. Synchronous and safe to call twice. */
+  shutdown(): void {
+    if (this.snapshot.closed) return;
+    try {
+      if (!this.writer.readOnly) this.writer.append({ type: 'close' });
+    } catch {
+      // A missing close is reported at the next resume as "not closed cleanly"; no grain depends on it.
+    } finally {
+      this.writer.close();
+      this.snapshot = { ...this.snapshot, closed: true };
+    }
+  }
+}

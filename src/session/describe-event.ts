@@ -1,0 +1,38 @@
+import type { SessionEvent } from './events.js';
+
+/** One short line per event, for the recent-events list and reports. */
+export function describeEvent(event: SessionEvent): string {
+  switch (event.type) {
+    case 'open':
+      return `level ${event.level} opened`;
+    case 'grain':
+      return `${event.taxon} (t${event.traverse})`;
+    case 'undo':
+      return `undo of #${event.of}`;
+    case 'traverse':
+      return `traverse ${event.traverse} started`;
+    case 'note':
+      return `note: ${event.text}`;
+    case 'sitting':
+      return `sitting ${event.sitting} started`;
+    case 'rules':
+      return `target sum now ${event.rules.targetSum}`;
+    case 'repair':
+      return `tail repaired (${event.cutBytes} bytes cut)`;
+    case 'close':
+      return 'sitting closed';
+    case 'finish':
+      return 'level finished';
+    default:
+      return event satisfies never;
+  }
+}
+
+/** "00:12:05" for an elapsed time in milliseconds. */
+export function formatDuration(ms: number): string {
+  const total = Math.max(0, Math.floor(ms / 1000));
+  const h = Math.floor(total / 3600);
+  const m = Math.floor((total % 3600) / 60);
+  const s = total % 60;
+  return [h, m, s].map((n) => String(n).padStart(2, '0')).join(':');
+}

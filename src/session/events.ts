@@ -1,0 +1,108 @@
+import type { Keymap } from '../keymap/keymap.js';
+import type { RuleSet } from '../rules/rule-set.js';
+
+/** The session-file format this version writes; files with a higher number are refused. */
+export const FORMAT_VERSION = 1;
+
+/** What the first line of every session file records about the level. */
+export interface LevelInfo {
+  readonly level: string;
+  /** Depth of the level in the core, in the core's own unit (usually cm). */
+  readonly depth: number | null;
+  readonly site: string | null;
+  readonly core: string | null;
+  readonly slide: string | null;
+  readonly analyst: string | null;
+}
+
+/** The fields every line carries, added by the log writer. */
+export interface Stamp {
+  readonly seq: number;
+  /** ISO 8601 UTC with milliseconds. */
+  readonly at: string;
+}
+
+export interface OpenPayload extends LevelInfo {
+  readonly type: 'open';
+  readonly format: number;
+  /** Random id: lines of another session never chain into this one. */
+  readonly session: string;
+  readonly keymap: Keymap;
+  readonly rules: RuleSet;
+}
+
+export interface GrainPayload {
+  readonly type: 'grain';
+  readonly taxon: string;
+  readonly traverse: number;
+  /** The key that was pressed, for the audit. */
+  readonly key: string;
+}
+
+export interface UndoPayload {
+  readonly type: 'undo';
+  /** seq of the grain this cancels. */
+  readonly of: number;
+}
+
+export interface TraversePayload {
+  readonly type: 'traverse';
+  /** Number of the traverse that starts here. */
+  readonly traverse: number;
+}
+
+export interface NotePayload {
+  readonly type: 'note';
+  readonly text: string;
+  readonly grain: number | null;
+  readonly stage: { readonly x: number; readonly y: number } | null;
+}
+
+export interface SittingPayload {
+  readonly type: 'sitting';
+  /** Which sitting this is: 1 when the level is created, then 2, 3 … at each resume. */
+  readonly sitting: number;
+}
+
+export interface RulesPayload {
+  readonly type: 'rules';
+  readonly rules: RuleSet;
+}
+
+export interface RepairPayload {
+  readonly type: 'repair';
+  /** What was wrong at the tail. */
+  readonly damage: string;
+  /** Line number where the cut began. */
+  readonly line: number;
+  readonly cutBytes: number;
+  /** File name (beside the session) holding the bytes that were cut. */
+  readonly backup: string;
+}
+
+export interface ClosePayload {
+  readonly type: 'close';
+}
+
+export interface FinishPayload {
+  readonly type: 'finish';
+}
+
+export type EventPayload =
+  | OpenPayload
+  | GrainPayload
+  | UndoPayload
+  | TraversePayload
+  | NotePayload
+  | SittingPayload
+  | RulesPayload
+  | RepairPayload
+  | ClosePayload
+  | FinishPayload;
+
+export type EventType = EventPayload['type'];
+
+/** An event as read from or written to the session file. */
+export type SessionEvent = EventPayload & Stamp;
+export type OpenEvent = OpenPayload & Stamp;
+export type GrainEvent = GrainPayload & Stamp;

@@ -1,0 +1,42 @@
+import type { Keymap } from '../keymap/keymap.js';
+import type { RuleSet } from '../rules/rule-set.js';
+import type { OpenEvent, SessionEvent } from './events.js';
+
+export interface CountedGrain {
+  readonly seq: number;
+  readonly taxon: string;
+  readonly traverse: number;
+}
+
+/** Grains still counted, newest first: undo pops in O(1) and nothing is copied. */
+export interface GrainStack {
+  readonly grain: CountedGrain;
+  readonly below: GrainStack | null;
+}
+
+/** Everything the screen, the summary and the export know about a level: a fold of its events. */
+export interface LevelState {
+  readonly header: OpenEvent;
+  readonly keymap: Keymap;
+  readonly rules: RuleSet;
+  readonly lastSeq: number;
+  readonly lastAt: string;
+  readonly traverse: number;
+  /** Grains per taxon, undone grains excluded. */
+  readonly counts: Readonly<Record<string, number>>;
+  readonly grains: number;
+  readonly stack: GrainStack | null;
+  readonly undos: number;
+  /** The last few events, oldest first. */
+  readonly recent: readonly SessionEvent[];
+  readonly sitting: number;
+  readonly sittingStartedAt: string;
+  /** True when the last event is a close or finish: the previous run ended cleanly. */
+  readonly closed: boolean;
+  readonly finished: boolean;
+  readonly repairs: number;
+  /** Events the fold could not apply (an undo of a grain that is not counted): kept, reported. */
+  readonly ignored: readonly number[];
+}
+
+export const RECENT_EVENTS = 12;

@@ -1,0 +1,136 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, readFileSync } from 'node:fs';
+import { ExineError } from '../errors.js';
+import type { Keymap } from '../keymap/keymap.js';
+import { repairTail } from '../log/repair-tail.js';
+import { scanLog, type LogScan } from '../log/scan-log.js';
+import { SessionLock } from '../log/session-lock.js';
+import { SessionWriter, type WriterOptions } from '../log/session-writer.js';
+import { sameRules, type RuleSet } from '../rules/rule-set.js';
+import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent } from './events.js';
+import { applyEvent, foldEvents } from './fold.js';
+import type { LevelState } from './level-state.js';
+
+export interface OpenedLevel {
+  readonly writer: SessionWriter;
+  readonly state: LevelState;
+  /** What the analyst should be told on opening: repairs, an unclean last exit, a lock taken over. */
+  readonly notices: readonly string[];
+}
+
+export interface NewLevel {
+  readonly info: LevelInfo;
+  readonly keymap: Keymap;
+  readonly rules: RuleSet;
+}
+
+function readBytes(path: string): Buffer {
+  try {
+    return readFileSync(path);
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    if (code === 'ENOENT') throw new ExineError(`${path}: no such session file`);
+    if (code === 'EISDIR') throw new ExineError(`${path} is a folder, not a session file`);
+    throw new ExineError(`${path}: cannot be read (${code ?? String(error)})`);
+  }
+}
+
+function stateOf(scan: LogScan): LevelState {
+  const open = scan.events[0] as OpenEvent | undefined;
+  if (!open || !scan.keymap) throw new Error('scan without a valid open line');
+  return foldEvents(open, scan.keymap, scan.events);
+}
+
+/** Read a level without locking or changing it: for summary, export, audit. */
+export function readLevel(path: string): { scan: LogScan; state: LevelState; warnings: string[] } {
+  const scan = scanLog(readBytes(path));
+  if (scan.corruption) {
+    throw new ExineError(`${path}: ${scan.corruption.message}; nothing was read (exine verify ${path} shows the details)`);
+  }
+  const warnings = scan.tail ? [`${path}: ${scan.tail.message}; that line is left out (exine count repairs it)`] : [];
+  return { scan, state: stateOf(scan), warnings };
+}
+
+/** Create a new level file, holding its lock; the first sitting starts. */
+export function createLevel(path: string, level: NewLevel, options: WriterOptions = {}): OpenedLevel {
+  if (existsSync(path)) throw new ExineError(`${path} already exists`);
+  const lock = SessionLock.acquire(path);
+  try {
+    const { writer, event } = SessionWriter.create(
+      path,
+      {
+        type: 'open',
+        format: FORMAT_VERSION,
+        session: randomBytes(16).toString('hex'),
+        ...level.info,
+        keymap: level.keymap,
+        rules: level.rules,
+      },
+      lock,
+      options,
+    );
+    try {
+      const state = applyEvent(foldEvents(event as OpenEvent, level.keymap, []), writer.append({ type: 'sitting', sitting: 1 }));
+      return { writer, state, notices: [] };
+    } catch (error) {
+      writer.close();
+      throw error;
+    }
+  } catch (error) {
+    lock.release();
+    throw error;
+  }
+}
+
+/**
+ * Reopen a level for counting: verify every line, cut a damaged tail (keeping
+ * a backup), refuse a file with damage in the middle, and start a new sitting.
+ */
+export function resumeLevel(path: string, options: WriterOptions & { rules?: RuleSet | undefined } = {}): OpenedLevel {
+  const lock = SessionLock.acquire(path);
+  try {
+    const notices: string[] = [];
+    if (lock.tookOverFrom) notices.push(`took over a stale lock left by ${lock.tookOverFrom}`);
+    const bytes = readBytes(path);
+    const scan = scanLog(bytes);
+    if (scan.corruption) {
+      throw new ExineError(
+        `${path}: ${scan.corruption.message}; it was not opened for counting and nothing was changed (exine verify ${path} for details)`,
+      );
+    }
+    let repaired = null;
+    if (scan.tail) {
+      repaired = repairTail(path, bytes, scan.tail, (options.clock ?? (() => new Date()))());
+      notices.push(
+        `${scan.tail.message}: cut ${repaired.cutBytes} bytes off the end, saved in ${repaired.backup}; every grain before it is kept`,
+      );
+    }
+    let state = stateOf(scan);
+    if (!repaired && !state.closed) {
+      notices.push('the last sitting was not closed cleanly (the program was stopped); every grain it showed is on disk');
+    }
+    const writer = SessionWriter.resume(path, scan.goodBytes, state.lastSeq, scan.lastHash, lock, options);
+    const record = (payload: EventPayload) => {
+      state = applyEvent(state, writer.append(payload));
+    };
+    try {
+      if (repaired) {
+        const { damage, cutBytes, backup } = repaired;
+        record({ type: 'repair', damage: damage.message, line: damage.line, cutBytes, backup });
+      }
+      record({ type: 'sitting', sitting: state.sitting + 1 });
+      const before = state.rules;
+      if (options.rules && !sameRules(options.rules, before)) {
+        record({ type: 'rules', rules: options.rules });
+        notices.push(`target pollen sum changed from ${before.targetSum} to ${options.rules.targetSum}`);
+      }
+    } catch (error) {
+      writer.close();
+      throw error;
+    }
+    return { writer, state, notices };
+  } catch (error) {
+    lock.release();
+    throw error;
+  }
+}
