@@ -51,7 +51,7 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
   const sideRoomForRecent = Math.max(2, mainHeight - 9);
   const h = state.header;
   const where = [h.site, h.core].filter(Boolean).join(' ');
-  const depth = h.depth === null ? '' : ` (${h.depth})`;
+  const depth = h.depth === null ? '' : ` · depth ${h.depth}`;
   const a = state.keymap.actions;
 
   return (

@@ -1,0 +1,97 @@
+// Writes the invented demo core into demo-sessions/: `node dist/demo/make-demo.js`.
+// The site, the core and every count are made up.
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { loadKeymap } from '../keymap/load-keymap.js';
+import type { Keymap } from '../keymap/keymap.js';
+import { encodeLine } from '../log/line-codec.js';
+import { FORMAT_VERSION, type EventPayload } from '../session/events.js';
+import { pickWeighted, seededRandom } from './seeded-random.js';
+
+interface DemoLevel {
+  readonly file: string;
+  readonly depth: number;
+  readonly sum: number;
+  readonly finished: boolean;
+  readonly shares: Readonly<Record<string, number>>;
+  readonly start: string;
+}
+
+// Invented assemblages: an open birch-pine phase at depth, mixed oak forest above, clearance at the top.
+const LEVELS: readonly DemoLevel[] = [
+  { file: 'km1-012cm.jsonl', depth: 12, sum: 512, finished: true, start: '2026-10-05T08:40:00.000Z',
+    shares: { Quercus: 9, Betula: 6, Alnus: 11, Pinus: 4, Corylus: 8, Calluna: 9, Poaceae: 24, Cyperaceae: 6, 'Plantago lanceolata': 8, Rumex: 4, Asteraceae: 3, Artemisia: 1, Pteridium: 5, Sphagnum: 3, 'Lycopodium (exotic marker)': 7, Indeterminable: 3, Charcoal: 4 } },
+  { file: 'km1-036cm.jsonl', depth: 36, sum: 505, finished: true, start: '2026-10-06T09:05:00.000Z',
+    shares: { Quercus: 18, Betula: 5, Alnus: 17, Ulmus: 2, Tilia: 3, Fraxinus: 3, Fagus: 1, Corylus: 16, Salix: 2, Calluna: 4, Hedera: 1, Poaceae: 12, Cyperaceae: 4, 'Plantago lanceolata': 3, Filipendula: 2, Pteridium: 3, Polypodium: 2, Nymphaea: 1, 'Lycopodium (exotic marker)': 8, Indeterminable: 3 } },
+  { file: 'km1-060cm.jsonl', depth: 60, sum: 520, finished: true, start: '2026-10-07T08:30:00.000Z',
+    shares: { Quercus: 22, Betula: 4, Alnus: 16, Ulmus: 7, Tilia: 6, Fraxinus: 3, Pinus: 3, Corylus: 22, Salix: 1, Hedera: 1, Poaceae: 6, Cyperaceae: 3, Filipendula: 1, Ranunculaceae: 1, Polypodium: 3, Nymphaea: 1, 'Lycopodium (exotic marker)': 9, Indeterminable: 2 } },
+  { file: 'km1-084cm.jsonl', depth: 84, sum: 236, finished: false, start: '2026-10-08T13:10:00.000Z',
+    shares: { Quercus: 12, Betula: 12, Alnus: 6, Ulmus: 9, Pinus: 14, Corylus: 26, Salix: 3, Poaceae: 6, Cyperaceae: 3, Artemisia: 1, Filipendula: 2, Polypodium: 2, Pteridium: 1, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
+  { file: 'km1-108cm.jsonl', depth: 108, sum: 501, finished: true, start: '2026-10-09T08:50:00.000Z',
+    shares: { Betula: 38, Pinus: 24, Salix: 6, Corylus: 3, Poaceae: 12, Cyperaceae: 8, Artemisia: 5, Amaranthaceae: 2, Rumex: 1, Sphagnum: 2, 'Lycopodium (exotic marker)': 12, Indeterminable: 4 } },
+];
+
+function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
+  const random = seededRandom(seed);
+  const hex = (n: number) => Array.from({ length: n }, () => Math.floor(random() * 16).toString(16)).join('');
+  const taxa = Object.entries(level.shares).filter(([, w]) => w > 0);
+  const keyOf = new Map(Object.entries(keymap.keys).map(([k, b]) => [b.taxon, k]));
+  const inSum = new Set(Object.values(keymap.keys).filter((b) => keymap.sum.includes(b.group)).map((b) => b.taxon));
+  let time = Date.parse(level.start);
+  let seq = 0;
+  let prev = '';
+  const lines: string[] = [];
+  const write = (payload: EventPayload, advanceMs = 0) => {
+    time += advanceMs;
+    const { line, hash } = encodeLine(payload, { seq: ++seq, at: new Date(time).toISOString() }, prev);
+    prev = hash;
+    lines.push(line);
+    return seq;
+  };
+  write({ type: 'open', format: FORMAT_VERSION, session: hex(32), level: `KM1-${level.depth}`, depth: level.depth, site: 'Kestrel Mere', core: 'KM-1', slide: `KM1-${String(level.depth).padStart(3, '0')}-A`, analyst: 'demo analyst', keymap, rules: { targetSum: 500 } });
+  let sitting = 1;
+  write({ type: 'sitting', sitting }, 50);
+  let traverse = 1;
+  let inTraverse = 0;
+  let sum = 0;
+  const traverseLength = () => 35 + Math.floor(random() * 30);
+  let thisTraverse = traverseLength();
+  const lastGrains: number[] = [];
+  const breakAt = level.finished ? Math.floor(level.sum * 0.55) : -1;
+  while (sum < level.sum) {
+    if (inTraverse >= thisTraverse) {
+      traverse++;
+      inTraverse = 0;
+      thisTraverse = traverseLength();
+      write({ type: 'traverse', traverse }, 20_000 + random() * 25_000);
+    }
+    if (sum === breakAt) {
+      write({ type: 'close' }, 4_000);
+      sitting++;
+      write({ type: 'sitting', sitting }, 18 * 3600_000 + random() * 3600_000);
+    }
+    const [taxon] = taxa[pickWeighted(random, taxa.map(([, w]) => w))] as [string, number];
+    const key = keyOf.get(taxon) as string;
+    const s = write({ type: 'grain', taxon, traverse, key }, 1_500 + random() * 5_000 + (random() < 0.03 ? 40_000 : 0));
+    lastGrains.push(s);
+    inTraverse++;
+    if (inSum.has(taxon)) sum++;
+    if (random() < 0.012) {
+      const of = lastGrains.pop() as number;
+      write({ type: 'undo', of }, 900 + random() * 1_500);
+      inTraverse--;
+      if (inSum.has(taxon)) sum--;
+    }
+  }
+  if (level.finished) write({ type: 'finish' }, 5_000);
+  else write({ type: 'close' }, 5_000);
+  return `${lines.join('\n')}\n`;
+}
+
+const out = resolve(process.argv[2] ?? 'demo-sessions');
+mkdirSync(out, { recursive: true });
+const { keymap } = loadKeymap('temperate-lowland');
+LEVELS.forEach((level, i) => {
+  writeFileSync(join(out, level.file), buildLevel(level, keymap, 1000 + i));
+  process.stdout.write(`wrote ${join(out, level.file)}\n`);
+});
