@@ -1,0 +1,77 @@
+import { describe, expect, it } from 'vitest';
+import { parseKeymap } from '../../src/keymap/parse-keymap.js';
+import { loadKeymap } from '../../src/keymap/load-keymap.js';
+
+const ok = (text: string) => {
+  const r = parseKeymap(text, 'my.json');
+  if (!r.ok) throw new Error(r.message);
+  return r.keymap;
+};
+const err = (text: string) => {
+  const r = parseKeymap(text, 'my.json');
+  if (r.ok) throw new Error('expected an error');
+  return r.message;
+};
+
+describe('keymap files', () => {
+  it('loads both bundled keymaps, with default actions and sum filled in', () => {
+    const lowland = loadKeymap('temperate-lowland').keymap;
+    expect(Object.keys(lowland.keys).length).toBeGreaterThan(20);
+    expect(lowland.sum).toEqual(['trees', 'shrubs', 'herbs']);
+    const keypad = loadKeymap('keypad').keymap;
+    expect(Object.keys(keypad.keys).every((k) => '0123456789.+-*/'.includes(k))).toBe(true);
+    expect(keypad.actions).toEqual({ undo: '-', traverse: '+', note: 'enter' });
+  });
+
+  it('defaults the actions to Backspace, Tab and Enter', () => {
+    const keymap = ok('{"name":"x","keys":{"q":{"taxon":"Quercus","group":"trees"}}}');
+    expect(keymap.actions).toEqual({ undo: 'backspace', traverse: 'tab', note: 'enter' });
+  });
+
+  it('keys are case-sensitive', () => {
+    const keymap = ok('{"name":"x","keys":{"q":{"taxon":"Quercus","group":"trees"},"Q":{"taxon":"Quercus robur-type","group":"trees"}}}');
+    expect(Object.keys(keymap.keys)).toEqual(['q', 'Q']);
+  });
+
+  it('names the line of malformed JSON', () => {
+    expect(err('{\n "name": "x",\n "keys": {\n   "q": { "taxon": "Quercus" "group": "trees" }\n }\n}')).toMatch(
+      /^keymap my\.json: line 4: expected ","/,
+    );
+  });
+
+  it('finds a key written twice, which JSON.parse would silently merge', () => {
+    const text = '{\n "name": "x",\n "keys": {\n  "q": {"taxon":"Quercus","group":"trees"},\n  "b": {"taxon":"Betula","group":"trees"},\n  "q": {"taxon":"Pinus","group":"trees"}\n }\n}';
+    expect(err(text)).toBe('keymap my.json: key "q" is bound twice (lines 4 and 6); keep one');
+  });
+
+  it('names the key with an unknown group and lists the groups', () => {
+    expect(err('{"name":"x","keys":{"q":{"taxon":"Quercus","group":"treez"}}}')).toBe(
+      'keymap my.json: key "q" has unknown group "treez" (expected one of trees, shrubs, herbs, spores, aquatics, markers, indeterminable, other)',
+    );
+  });
+
+  it('refuses a key bound to both a taxon and an action', () => {
+    expect(err('{"name":"x","keys":{"u":{"taxon":"Ulmus","group":"trees"}},"actions":{"undo":"u"}}')).toBe(
+      'keymap my.json: key "u" is bound to both taxon "Ulmus" and action "undo"; pick one',
+    );
+  });
+
+  it('refuses two actions on one key, multi-character keys, control keys and a missing field', () => {
+    expect(err('{"name":"x","keys":{"q":{"taxon":"Q","group":"trees"}},"actions":{"undo":"tab"}}')).toMatch(/both actions "undo" and "traverse"/);
+    expect(err('{"name":"x","keys":{"qu":{"taxon":"Q","group":"trees"}}}')).toMatch(/key "qu" must be a single printable character/);
+    expect(err('{"name":"x","keys":{"\\t":{"taxon":"Q","group":"trees"}}}')).toMatch(/single printable character/);
+    expect(err('{"name":"x","keys":{"q":{"group":"trees"}}}')).toMatch(/"keys\.q\.taxon" is missing/);
+    expect(err('{"keys":{"q":{"taxon":"Q","group":"trees"}}}')).toMatch(/"name" is missing/);
+  });
+
+  it('refuses one taxon on two keys and an unknown sum group', () => {
+    expect(err('{"name":"x","keys":{"q":{"taxon":"Quercus","group":"trees"},"w":{"taxon":"Quercus","group":"trees"}}}')).toMatch(
+      /taxon "Quercus" is on two keys, "q" and "w"/,
+    );
+    expect(err('{"name":"x","keys":{"q":{"taxon":"Q","group":"trees"}},"sum":["trees","herb"]}')).toMatch(/"sum" lists unknown group "herb"/);
+  });
+
+  it('takes the pollen sum groups from "sum"', () => {
+    expect(ok('{"name":"x","keys":{"q":{"taxon":"Q","group":"trees"}},"sum":["trees"]}').sum).toEqual(['trees']);
+  });
+});

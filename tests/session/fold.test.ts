@@ -1,0 +1,97 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import type { EventPayload, OpenEvent, SessionEvent } from '../../src/session/events.js';
+import { applyEvent, foldEvents } from '../../src/session/fold.js';
+import { decide } from '../../src/session/command-event.js';
+import { resolveKey } from '../../src/keymap/resolve-key.js';
+import { splitKeys } from '../../src/input/key-press.js';
+import type { LevelState } from '../../src/session/level-state.js';
+import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
+
+const at = (i: number) => new Date(Date.UTC(2026, 10, 2, 9, 0, i)).toISOString();
+const open = { ...openPayload(), seq: 1, at: at(0) } as OpenEvent;
+
+function given(payloads: EventPayload[]): LevelState {
+  const events = payloads.map((p, i) => ({ ...p, seq: i + 2, at: at(i + 1) }) as SessionEvent);
+  return foldEvents(open, TINY_KEYMAP, events);
+}
+
+describe('the fold of a level', () => {
+  it('counts grains per taxon', () => {
+    const s = given([grain('Alnus'), grain('Alnus'), grain('Betula'), grain('Sphagnum')]);
+    expect(s.counts).toEqual({ Alnus: 2, Betula: 1, Sphagnum: 1 });
+    expect(s.grains).toBe(4);
+  });
+
+  it('an undo cancels the grain it names, and only that one', () => {
+    const s = given([grain('Alnus'), grain('Betula'), { type: 'undo', of: 3 }]);
+    expect(s.counts).toEqual({ Alnus: 1 });
+    expect(s.stack?.grain.seq).toBe(2);
+    expect(s.undos).toBe(1);
+  });
+
+  it('an undo of an old grain removes it from the middle of the stack', () => {
+    const s = given([grain('Alnus'), grain('Betula'), grain('Corylus'), { type: 'undo', of: 2 }]);
+    expect(s.counts).toEqual({ Betula: 1, Corylus: 1 });
+    expect([s.stack?.grain.taxon, s.stack?.below?.grain.taxon, s.stack?.below?.below]).toEqual(['Corylus', 'Betula', null]);
+  });
+
+  it('an undo of a grain that is not counted changes no count and is reported', () => {
+    const s = given([grain('Alnus'), { type: 'undo', of: 2 }, { type: 'undo', of: 2 }, { type: 'undo', of: 99 }]);
+    expect(s.counts).toEqual({});
+    expect(s.ignored).toEqual([4, 5]);
+  });
+
+  it('follows traverses, sittings, rule changes and a clean close', () => {
+    const s = given([
+      { type: 'sitting', sitting: 1 },
+      grain('Alnus', 1),
+      { type: 'traverse', traverse: 2 },
+      grain('Betula', 2),
+      { type: 'close' },
+    ]);
+    expect(s.traverse).toBe(2);
+    expect(s.stack?.grain.traverse).toBe(2);
+    expect(s.sitting).toBe(1);
+    expect(s.closed).toBe(true);
+    const later = applyEvent(s, { type: 'sitting', sitting: 2, seq: 7, at: at(7) });
+    expect([later.closed, later.sitting, later.sittingStartedAt]).toEqual([false, 2, at(7)]);
+    expect(applyEvent(later, { type: 'rules', rules: { targetSum: 300 }, seq: 8, at: at(8) }).rules.targetSum).toBe(300);
+  });
+
+  it('keeps a window of recent events', () => {
+    const s = given(Array.from({ length: 30 }, () => grain('Alnus')));
+    expect(s.recent.length).toBe(12);
+    expect(s.recent.at(-1)?.seq).toBe(31);
+  });
+
+  it('does not change the state it was given', () => {
+    const s = given([grain('Alnus')]);
+    const copy = JSON.stringify({ counts: s.counts, grains: s.grains, recent: s.recent.length });
+    applyEvent(s, { ...grain('Alnus'), seq: 3, at: at(3) } as SessionEvent);
+    expect(JSON.stringify({ counts: s.counts, grains: s.grains, recent: s.recent.length })).toBe(copy);
+  });
+
+  it('property: any key sequence gives the counts of a plain stack model (fast-check)', () => {
+    const keys = fc.array(fc.constantFrom('a', 'b', 'c', 's', 'l', 'x', '\x7f', '\t'), { maxLength: 300 });
+    fc.assert(
+      fc.property(keys, (presses) => {
+        let state = foldEvents(open, TINY_KEYMAP, []);
+        const model: string[] = [];
+        let traverses = 1;
+        for (const press of splitKeys(presses.join(''), {})) {
+          const d = decide(state, resolveKey(TINY_KEYMAP, press));
+          if (d.kind === 'record') state = applyEvent(state, { ...d.payload, seq: state.lastSeq + 1, at: at(state.lastSeq + 1) } as SessionEvent);
+          if (press.kind === 'char' && TINY_KEYMAP.keys[press.char]) model.push(TINY_KEYMAP.keys[press.char]!.taxon);
+          if (press.kind === 'backspace') model.pop();
+          if (press.kind === 'tab') traverses++;
+        }
+        const expected: Record<string, number> = {};
+        for (const t of model) expected[t] = (expected[t] ?? 0) + 1;
+        expect(state.counts).toEqual(expected);
+        expect(state.grains).toBe(model.length);
+        expect(state.traverse).toBe(traverses);
+      }),
+    );
+  });
+});
