@@ -15,6 +15,8 @@ export function neutraliseText(value: string): string {
 export function toCsv(columns: readonly string[], rows: readonly (readonly Cell[])[]): string {
   return stringify([[...columns], ...rows.map((r) => r.map((c) => (c === null ? '' : c)))], {
     record_delimiter: 'windows',
+    // With CRLF records, csv-stringify would leave a lone LF or CR unquoted; RFC 4180 quotes both.
+    quoted_match: /[\r\n]/,
     cast: { string: (value) => neutraliseText(value) },
   });
 }

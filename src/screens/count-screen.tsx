@@ -6,7 +6,7 @@ import { formatDuration } from '../session/describe-event.js';
 import type { CountingSession } from '../session/counting-session.js';
 import { levelTable } from '../stats/level-table.js';
 import { RecentEvents } from './recent-events.js';
-import { SumPanel } from './sum-panel.js';
+import { SumPanel, sumPanelHeight } from './sum-panel.js';
 import { themeFor } from './theme.js';
 import { TABLE_WIDTH, TotalsTable } from './totals-table.js';
 
@@ -48,7 +48,8 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
   const height = Math.max(12, (rows ?? stdout.rows ?? 24) - 1);
   const mainHeight = height - 4;
   const sideWidth = Math.max(20, width - TABLE_WIDTH - 2);
-  const sideRoomForRecent = Math.max(2, mainHeight - 9);
+  // Recent events get what the sum panel leaves: one line for its margin, one for its title.
+  const sideRoomForRecent = Math.max(1, mainHeight - sumPanelHeight(table, state.rules.targetSum) - 2);
   const h = state.header;
   const where = [h.site, h.core].filter(Boolean).join(' ');
   const depth = h.depth === null ? '' : ` · depth ${h.depth}`;
@@ -56,13 +57,14 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
 
   return (
     <Box flexDirection="column" width={width} height={height}>
-      <Text>
-        <Text bold color={theme.accent}>{`${where ? `${where} · ` : ''}level ${h.level}${depth}`}</Text>
-        {` · slide ${h.slide ?? '–'} · `}
-        <Text bold>{`traverse ${state.traverse}`}</Text>
-        {` · sitting ${state.sitting} ${formatDuration(now - Date.parse(state.sittingStartedAt))}`}
+      <Text bold color={theme.accent} wrap="truncate-end">
+        {`${where ? `${where} · ` : ''}level ${h.level}${depth} · slide ${h.slide ?? '–'}`}
       </Text>
-      <Box flexDirection="row" height={mainHeight} marginTop={1}>
+      <Text wrap="truncate-end">
+        <Text bold>{`traverse ${state.traverse}`}</Text>
+        {` · sitting ${state.sitting} · ${formatDuration(now - Date.parse(state.sittingStartedAt))}`}
+      </Text>
+      <Box flexDirection="row" height={mainHeight}>
         <TotalsTable table={table} room={mainHeight - 1} theme={theme} />
         <Box flexDirection="column" marginLeft={2} width={sideWidth}>
           <SumPanel table={table} target={state.rules.targetSum} theme={theme} width={sideWidth} />
@@ -75,7 +77,7 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
         {snapshot.readOnly ? `READ-ONLY: ${snapshot.readOnly}` : (snapshot.message?.text ?? ' ')}
       </Text>
       <Text dimColor={theme.dim} wrap="truncate-end">
-        {`${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} next traverse · Ctrl-C save and quit · * outside the pollen sum`}
+        {`${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} next traverse · Ctrl-C save & quit · * not in pollen sum`}
       </Text>
     </Box>
   );

@@ -6,6 +6,15 @@ import type { Theme } from './theme.js';
 
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
+function shownGroups(table: LevelTable) {
+  return GROUPS.filter((g) => table.sumGroups.includes(g) || table.groupTotals[g] > 0);
+}
+
+/** Lines the panel takes, so the screen can give the rest to other panels. */
+export function sumPanelHeight(table: LevelTable, target: number): number {
+  return 2 + (table.pollenSum >= target ? 1 : 0) + shownGroups(table).length;
+}
+
 export function SumPanel({ table, target, theme, width }: { table: LevelTable; target: number; theme: Theme; width: number }) {
   const reached = table.pollenSum >= target;
   const barWidth = Math.max(6, width - 7);
@@ -18,7 +27,7 @@ export function SumPanel({ table, target, theme, width }: { table: LevelTable; t
         {`${bar(table.pollenSum / target, barWidth)} ${right(`${Math.floor((100 * table.pollenSum) / target)}%`, 4)}`}
       </Text>
       {reached ? <Text color={theme.ok} bold>TARGET SUM REACHED</Text> : null}
-      {GROUPS.filter((g) => table.sumGroups.includes(g) || table.groupTotals[g] > 0).map((g) => (
+      {shownGroups(table).map((g) => (
         <Text key={g}>
           {`${fit(capital(g), 14)} ${right(String(table.groupTotals[g]), 5)}${table.sumGroups.includes(g) ? '' : ' *'}`}
         </Text>

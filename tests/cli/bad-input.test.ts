@@ -1,0 +1,99 @@
+import { existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { oneLine, runExine } from '../helpers/run-exine.js';
+import { tempDir } from '../helpers/temp-dir.js';
+import { grain, openPayload, sessionText } from '../helpers/levels.js';
+
+function folderWith(files: Record<string, string>) {
+  const dir = tempDir();
+  for (const [name, text] of Object.entries(files)) writeFileSync(join(dir, name), text);
+  return dir;
+}
+
+const snapshot = (dir: string) => Object.fromEntries(readdirSync(dir).map((f) => [f, readFileSync(join(dir, f), 'utf8')]));
+
+describe('bad input gets one clear line, the right exit code, and changes nothing', () => {
+  const cases: [string, string, RegExp][] = [
+    ['malformed JSON', '{"name": "x", "keys": {"q": {"taxon": "Quercus", "group": "trees"},}}', /^exine: keymap bad\.json: line 1: expected a quoted property name/],
+    ['a key written twice', '{"name":"x","keys":{\n"q":{"taxon":"Quercus","group":"trees"},\n"q":{"taxon":"Pinus","group":"trees"}}}', /^exine: keymap bad\.json: key "q" is bound twice \(lines 2 and 3\)/],
+    ['an unknown group', '{"name":"x","keys":{"q":{"taxon":"Quercus","group":"treez"}}}', /^exine: keymap bad\.json: key "q" has unknown group "treez" \(expected one of trees,/],
+    ['a key on a taxon and an action', '{"name":"x","keys":{"q":{"taxon":"Quercus","group":"trees"}},"actions":{"note":"q"}}', /^exine: keymap bad\.json: key "q" is bound to both taxon "Quercus" and action "note"/],
+  ];
+  it.each(cases)('keymap with %s: exine keys and exine count refuse it', (_, text, message) => {
+    const dir = folderWith({ 'bad.json': text });
+    const keys = runExine(['keys', 'bad.json'], dir);
+    expect(keys.code).toBe(1);
+    expect(oneLine(keys)).toMatch(message);
+    const count = runExine(['count', 'new.jsonl', '--keymap', 'bad.json'], dir);
+    expect(count.code).toBe(1);
+    expect(oneLine(count)).toMatch(message);
+    expect(readdirSync(dir)).toEqual(['bad.json']);
+  });
+
+  it('an unknown flag is a usage error (exit 2) and creates nothing', () => {
+    const dir = tempDir();
+    const run = runExine(['count', 'new.jsonl', '--traget', '300'], dir);
+    expect(run.code).toBe(2);
+    expect(oneLine(run)).toBe("exine count: unknown option '--traget' (see exine count --help)");
+    expect(readdirSync(dir)).toEqual([]);
+  });
+
+  it('bad flag values and unknown commands are usage errors too', () => {
+    const dir = tempDir();
+    expect(oneLine(runExine(['count', 'n.jsonl', '--target', 'lots'], dir))).toMatch(/--target must be a whole number above 0, not "lots"/);
+    expect(runExine(['count', 'n.jsonl', '--depth', 'deep'], dir).code).toBe(2);
+    expect(runExine(['export', 'x.jsonl', '--format', 'tall'], dir).code).toBe(2);
+    expect(runExine(['tally'], dir).code).toBe(2);
+    expect(readdirSync(dir)).toEqual([]);
+  });
+
+  it('a missing file is named', () => {
+    const dir = tempDir();
+    for (const command of ['summary', 'export', 'verify']) {
+      const run = runExine([command, 'nowhere.jsonl'], dir);
+      expect(run.code).toBe(1);
+      expect(oneLine(run)).toMatch(/nowhere\.jsonl: no such session file/);
+    }
+    expect(oneLine(runExine(['keys', 'nowhere.json'], dir))).toMatch(/keymap nowhere\.json: no such file/);
+  });
+
+  it('a session file from a future format version is refused by every command, untouched', () => {
+    const dir = folderWith({ 'future.jsonl': sessionText([{ ...openPayload(), format: 2 }, grain('Alnus')]) });
+    const before = snapshot(dir);
+    for (const args of [['count', 'future.jsonl'], ['summary', 'future.jsonl'], ['export', 'future.jsonl'], ['verify', 'future.jsonl']]) {
+      const run = runExine(args, dir);
+      expect(run.code, args.join(' ')).toBe(1);
+      expect(oneLine(run)).toMatch(/line 1 is session format 2, written by a newer exine \(this one reads format 1\); update exine/);
+    }
+    expect(snapshot(dir)).toEqual(before);
+  });
+
+  it('count without a terminal says so and creates nothing', () => {
+    const dir = tempDir();
+    const run = runExine(['count', 'new.jsonl'], dir);
+    expect(run.code).toBe(1);
+    expect(oneLine(run)).toMatch(/needs an interactive terminal/);
+    expect(readdirSync(dir)).toEqual([]);
+  });
+
+  it('resuming with details that differ from the file is refused, naming both', () => {
+    const dir = folderWith({ 'l.jsonl': sessionText([openPayload(), grain('Alnus')]) });
+    const run = runExine(['count', 'l.jsonl', '--depth', '99'], dir);
+    expect(run.code).toBe(2);
+    expect(oneLine(run)).toMatch(/records depth 10, not 99/);
+    const keymap = runExine(['count', 'l.jsonl', '--keymap', 'keypad'], dir);
+    expect(oneLine(keymap)).toMatch(/was counted with its own keymap "tiny"; resuming always uses that one/);
+  });
+
+  it('export never overwrites a file without --force', () => {
+    const dir = folderWith({ 'l.jsonl': sessionText([openPayload(), grain('Alnus')]), 'out.csv': 'precious' });
+    const run = runExine(['export', 'l.jsonl', '--out', 'out.csv'], dir);
+    expect(run.code).toBe(1);
+    expect(oneLine(run)).toBe('exine: out.csv already exists; add --force to replace it');
+    expect(readFileSync(join(dir, 'out.csv'), 'utf8')).toBe('precious');
+    expect(runExine(['export', 'l.jsonl', '--out', 'out.csv', '--force'], dir).code).toBe(0);
+    expect(readFileSync(join(dir, 'out.csv'), 'utf8')).toMatch(/^level,depth,/);
+    expect(existsSync(join(dir, 'l.jsonl'))).toBe(true);
+  });
+});

@@ -1,0 +1,69 @@
+import { copyFileSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { parse } from 'csv-parse/sync';
+import { runExine } from '../helpers/run-exine.js';
+import { tempDir } from '../helpers/temp-dir.js';
+
+const DEMO = join(import.meta.dirname, '../../demo-sessions');
+
+function demoCopy() {
+  const dir = tempDir();
+  for (const f of readdirSync(DEMO)) copyFileSync(join(DEMO, f), join(dir, f));
+  return dir;
+}
+
+describe('the read-only commands on the demo core', () => {
+  it('verify: every demo level is intact; an edit is caught with its line number', () => {
+    const dir = demoCopy();
+    for (const f of readdirSync(dir)) {
+      const run = runExine(['verify', f], dir);
+      expect(run.code, f).toBe(0);
+      expect(run.stdout).toMatch(/intact, \d+ lines, chain verified/);
+    }
+    const text = readFileSync(join(dir, 'km1-060cm.jsonl'), 'utf8').split('\n');
+    text[40] = (text[40] as string).replace(/"traverse":(\d+)/, (_, n) => `"traverse":${Number(n) + 1}`);
+    writeFileSync(join(dir, 'km1-060cm.jsonl'), text.join('\n'));
+    const run = runExine(['verify', 'km1-060cm.jsonl'], dir);
+    expect(run.code).toBe(1);
+    expect(run.stderr).toMatch(/km1-060cm\.jsonl: line 41 does not match its hash.*\(40 lines before it are intact\)/);
+  });
+
+  it('summary --json gives the pollen sum and each taxon with its interval', () => {
+    const run = runExine(['summary', 'km1-084cm.jsonl', '--json'], demoCopy());
+    expect(run.code).toBe(0);
+    const s = JSON.parse(run.stdout);
+    expect(s.pollenSum).toBeGreaterThan(200);
+    expect(s.pollenSum).toBeLessThan(500);
+    const corylus = s.taxa.find((t: { taxon: string }) => t.taxon === 'Corylus');
+    expect(corylus.percent).toBeCloseTo((100 * corylus.count) / s.pollenSum, 10);
+    expect(corylus.ciLow).toBeLessThan(corylus.percent);
+  });
+
+  it('export --format wide: one row per level in depth order, one column per taxon', () => {
+    const dir = demoCopy();
+    const run = runExine(['export', ...readdirSync(dir).reverse(), '--format', 'wide'], dir);
+    expect(run.code).toBe(0);
+    const rows = parse(run.stdout, { columns: true }) as Record<string, string>[];
+    expect(rows.map((r) => r.depth)).toEqual(['12', '36', '60', '84', '108']);
+    expect(Number(rows[0]!.pollen_sum)).toBeGreaterThanOrEqual(500);
+    const taxa = Object.keys(rows[0]!).slice(7);
+    expect(taxa.slice(0, 3)).toEqual(['Quercus', 'Betula', 'Alnus']);
+  });
+
+  it('keys draws the layout of a bundled keymap', () => {
+    const run = runExine(['keys', 'keypad']);
+    expect(run.code).toBe(0);
+    expect(run.stdout).toMatch(/laid out on the numeric keypad/);
+    expect(run.stdout).toMatch(/7 T\s+8 T\s+9 T\s+\+/);
+  });
+
+  it('help for every command, exit 0', () => {
+    for (const c of ['count', 'demo', 'summary', 'export', 'verify', 'keys']) {
+      const run = runExine([c, '--help']);
+      expect(run.code, c).toBe(0);
+      expect(run.stdout).toMatch(/^Usage/);
+    }
+    expect(runExine(['--help']).stdout).toMatch(/Commands/);
+  });
+});

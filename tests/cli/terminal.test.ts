@@ -1,0 +1,102 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { isProcessRunning } from '../../src/io/process-info.js';
+import { scanLog } from '../../src/log/scan-log.js';
+import { readLevel, resumeLevel } from '../../src/session/session-files.js';
+import { startInPty } from '../helpers/pty.js';
+import { tempDir } from '../helpers/temp-dir.js';
+
+/** SIGKILL is delivered asynchronously: wait until the process is gone (or a zombie) before reading its file. */
+async function untilDead(pid: number) {
+  for (let i = 0; i < 200 && isProcessRunning(pid); i++) await new Promise((r) => setTimeout(r, 10));
+  expect(isProcessRunning(pid)).toBe(false);
+}
+
+// End-to-end: the real program in a real pseudo-terminal, keys typed as bursts.
+describe('exine count in a terminal', () => {
+  it('counts a burst, quits on Ctrl-C with a close event, and resumes where it stopped', async () => {
+    const dir = tempDir();
+    const t = startInPty(['count', 'l.jsonl', '--core', 'KM-1', '--depth', '84'], dir);
+    await t.ready(/Pollen sum 0 \/ 500/);
+    t.type('qqqbb\x7f\tpp');
+    await t.waitFor(/Pollen sum 6 \/ 500/);
+    t.type('\x03');
+    expect(await t.exited()).toBe(0);
+    expect(t.output()).toMatch(/saved .*l\.jsonl: 6 grains, pollen sum 6/);
+    const { state } = readLevel(join(dir, 'l.jsonl'));
+    expect(state.counts).toEqual({ Quercus: 3, Betula: 1, Pinus: 2 });
+    expect([state.traverse, state.closed]).toEqual([2, true]);
+
+    const again = startInPty(['count', 'l.jsonl'], dir);
+    await again.ready(/Pollen sum 6 \/ 500/);
+    expect(again.output()).toMatch(/traverse 2/);
+    expect(again.output()).toMatch(/sitting 2/);
+    again.type('\x03');
+    expect(await again.exited()).toBe(0);
+  });
+
+  it('a second exine on the same file is refused while the first counts', async () => {
+    const dir = tempDir();
+    const first = startInPty(['count', 'l.jsonl'], dir);
+    await first.ready(/Pollen sum 0/);
+    const second = startInPty(['count', 'l.jsonl'], dir);
+    expect(await second.exited()).toBe(1);
+    expect(second.output()).toMatch(/l\.jsonl is already open in exine process \d+/);
+    first.type('\x03');
+    expect(await first.exited()).toBe(0);
+  });
+
+  it('SIGKILL in the middle of a burst loses no grain that was on screen', async () => {
+    const dir = tempDir();
+    const t = startInPty(['count', 'l.jsonl'], dir);
+    await t.ready(/Pollen sum 0/);
+    // Keys keep arriving in small bursts while the process is killed.
+    const typing = setInterval(() => t.type('qbaco'.repeat(4)), 5);
+    await t.waitFor(/Pollen sum \d{3,} \//);
+    const pid = t.programPid();
+    const shown = Math.max(...[...t.output().matchAll(/Pollen sum (\d+) \//g)].map((m) => Number(m[1])));
+    process.kill(pid, 'SIGKILL');
+    clearInterval(typing);
+    // `script` itself lingers on its open input: end it too.
+    t.proc.kill('SIGKILL');
+    await t.exited();
+    await untilDead(pid);
+    const scan = scanLog(readFileSync(join(dir, 'l.jsonl')));
+    expect(scan.corruption).toBeNull();
+    const onDisk = scan.events.filter((e) => e.type === 'grain').length;
+    expect(onDisk).toBeGreaterThanOrEqual(shown);
+    const opened = resumeLevel(join(dir, 'l.jsonl'));
+    opened.writer.close();
+    expect(opened.state.grains).toBe(onDisk);
+    expect(opened.notices.join()).toMatch(/not closed cleanly|incomplete/);
+  });
+
+  it('SIGTERM closes the sitting cleanly', async () => {
+    const dir = tempDir();
+    const t = startInPty(['count', 'l.jsonl'], dir);
+    await t.ready(/Pollen sum 0/);
+    t.type('qq');
+    await t.waitFor(/Pollen sum 2/);
+    process.kill(t.programPid(), 'SIGTERM');
+    await t.exited();
+    expect(readLevel(join(dir, 'l.jsonl')).state.closed).toBe(true);
+    expect(readdirSync(dir)).toEqual(['l.jsonl']);
+  });
+});
+
+describe('exine demo in a terminal', () => {
+  it('opens a copy of the half-counted demo level and leaves the bundled file alone', async () => {
+    const bundled = join(import.meta.dirname, '../../demo-sessions/km1-084cm.jsonl');
+    const before = readFileSync(bundled);
+    const t = startInPty(['demo'], tempDir());
+    await t.ready(/Kestrel Mere KM-1 · level KM1-84/);
+    const sum = Number(/Pollen sum (\d+)/.exec(t.output())?.[1]);
+    t.type('cc');
+    await t.waitFor(new RegExp(`Pollen sum ${sum + 2} /`));
+    t.type('\x03');
+    expect(await t.exited()).toBe(0);
+    expect(t.output()).toMatch(/the demo copy stays in .*km1-084cm\.jsonl/);
+    expect(readFileSync(bundled).equals(before)).toBe(true);
+  });
+});

@@ -1,0 +1,126 @@
+import { copyFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { render } from 'ink-testing-library';
+import { describe, expect, it } from 'vitest';
+import { CountScreen } from '../../src/screens/count-screen.js';
+import { CountingSession } from '../../src/session/counting-session.js';
+import { readLevel, resumeLevel } from '../../src/session/session-files.js';
+import { newLevelFile } from '../helpers/levels.js';
+import { tempDir } from '../helpers/temp-dir.js';
+
+const tick = () => new Promise((r) => setTimeout(r, 30));
+
+async function screenFor(path?: string, size = { columns: 80, rows: 24 }) {
+  const level = path ? { path, ...resumeLevel(path) } : newLevelFile(tempDir());
+  const session = new CountingSession(level.writer, level.state, level.notices);
+  const ui = render(<CountScreen session={session} {...size} />);
+  await tick();
+  const type = async (keys: string) => {
+    ui.stdin.write(keys);
+    await tick();
+  };
+  return { ...ui, session, path: level.path, type };
+}
+
+const row = (frame: string, taxon: string) => frame.split('\n').find((l) => l.includes(taxon)) ?? '';
+
+describe('the counting screen', () => {
+  it('counts every key of a burst: "aaab" is four grains', async () => {
+    const s = await screenFor();
+    await s.type('aaab');
+    expect(s.session.getSnapshot().state.counts).toEqual({ Alnus: 3, Betula: 1 });
+    expect(row(s.lastFrame() ?? '', 'Alnus')).toMatch(/a\s+Alnus\s+tree\s+3\s+75\.0\s+30\.1–95\.4/);
+    expect(s.lastFrame()).toMatch(/Pollen sum 4 \/ 500/);
+    s.session.shutdown();
+    expect(readLevel(s.path).state.counts).toEqual({ Alnus: 3, Betula: 1 });
+  });
+
+  it('reads control keys inside a burst in order: a, b, undo, next traverse', async () => {
+    const s = await screenFor();
+    await s.type('ab\x7f\t');
+    const state = s.session.getSnapshot().state;
+    expect(state.counts).toEqual({ Alnus: 1 });
+    expect(state.traverse).toBe(2);
+    expect(s.lastFrame()).toMatch(/traverse 2/);
+    expect(s.lastFrame()).toMatch(/undo of #4/);
+    s.session.shutdown();
+  });
+
+  it('undo on its own key and traverse on its own key work too', async () => {
+    const s = await screenFor();
+    await s.type('c');
+    await s.type('c');
+    await s.type('\x7f');
+    await s.type('\t');
+    await s.type('o');
+    const state = s.session.getSnapshot().state;
+    expect(state.counts).toEqual({ Corylus: 1, Poaceae: 1 });
+    expect(state.stack?.grain).toMatchObject({ taxon: 'Poaceae', traverse: 2 });
+    s.session.shutdown();
+  });
+
+  it('says so when a key is not mapped, or there is nothing to undo, and counts nothing', async () => {
+    const s = await screenFor();
+    await s.type('\x7f');
+    expect(s.lastFrame()).toMatch(/nothing to undo/);
+    await s.type('Z');
+    expect(s.lastFrame()).toMatch(/key "Z" is not in the keymap: nothing counted/);
+    expect(s.session.getSnapshot().state.grains).toBe(0);
+    s.session.shutdown();
+  });
+
+  it('puts groups outside the pollen sum apart: spores are percent of sum + spores', async () => {
+    const s = await screenFor();
+    await s.type('aaas');
+    const frame = s.lastFrame() ?? '';
+    expect(row(frame, 'Sphagnum')).toMatch(/s\s+Sphagnum\s+spore\s+1\s+25\.0.*\*/);
+    expect(frame).toMatch(/Pollen sum 3 \/ 500/);
+    s.session.shutdown();
+  });
+
+  it('Ctrl-C in a burst stops there, writes a close event and releases the file', async () => {
+    const s = await screenFor();
+    await s.type('ab\x03aaaa');
+    expect(s.session.getSnapshot().closed).toBe(true);
+    const state = readLevel(s.path).state;
+    expect(state.counts).toEqual({ Alnus: 1, Betula: 1 });
+    expect(state.closed).toBe(true);
+  });
+
+  it('resume shows the same totals, traverse and recent events', async () => {
+    const first = await screenFor();
+    await first.type('aabco\too');
+    const before = first.lastFrame() ?? '';
+    first.session.shutdown();
+    first.unmount();
+    const again = await screenFor(first.path);
+    const after = again.lastFrame() ?? '';
+    for (const taxon of ['Alnus', 'Betula', 'Corylus', 'Poaceae']) expect(row(after, taxon)).toBe(row(before, taxon));
+    expect(after).toMatch(/traverse 2/);
+    expect(after).toMatch(/sitting 2/);
+    expect(after).toMatch(/Pollen sum 7 \/ 500/);
+    again.session.shutdown();
+  });
+
+  it('at 80x24 a busy level still shows every panel: demo level with six groups', async () => {
+    const dir = tempDir();
+    const path = join(dir, 'demo.jsonl');
+    copyFileSync(join(import.meta.dirname, '../../demo-sessions/km1-084cm.jsonl'), path);
+    const s = await screenFor(path);
+    const frame = s.lastFrame() ?? '';
+    for (const part of [/Kestrel Mere KM-1 · level KM1-84 · depth 84/, /traverse 6 · sitting 2/, /Key Taxon/, /Pollen sum 236 \/ 500/, /Indeterminable\s+4 \*/, /Last recorded/, /#296 sitting 2 started/, /Backspace undo/]) {
+      expect(frame).toMatch(part);
+    }
+    expect(frame.split('\n').length).toBeLessThan(24);
+    s.session.shutdown();
+  });
+
+  it('fits 80x24: no line wider than 80 and fewer than 24 lines', async () => {
+    const s = await screenFor();
+    await s.type('abcosl');
+    const lines = (s.lastFrame() ?? '').split('\n');
+    expect(lines.length).toBeLessThan(24);
+    for (const line of lines) expect([...line].length).toBeLessThanOrEqual(80);
+    s.session.shutdown();
+  });
+});
