@@ -1,3 +1,4 @@
+import { isAscii } from 'node:buffer';
 import { checkKeymapValue } from '../keymap/parse-keymap.js';
 import type { Keymap } from '../keymap/keymap.js';
 import { FORMAT_VERSION } from '../session/events.js';
@@ -30,8 +31,12 @@ export interface Damage {
 }
 
 export interface LogScan {
-  /** Events of the valid prefix, in order. */
+  /** Events of the valid prefix, in order (empty when they were streamed to `onEvent` instead). */
   readonly events: readonly ParsedEvent[];
+  /** Number of valid lines. */
+  readonly lines: number;
+  /** The open event of line 1, when it is valid. */
+  readonly open: ParsedEvent | null;
   /** Length in bytes of the valid prefix. */
   readonly goodBytes: number;
   readonly totalBytes: number;
@@ -47,14 +52,14 @@ export interface LogScan {
 
 type LineCheck = { ok: true; event: ParsedEvent; hash: string; keymap?: Keymap } | { ok: false; problem: Problem; message: string };
 
-function checkLine(bytes: Buffer, lineNo: number, prevHash: string): LineCheck {
+function checkLine(line: string, lineNo: number, prevHash: string): LineCheck {
   const bad = (problem: Problem, message: string): LineCheck => ({ ok: false, problem, message: `line ${lineNo} ${message}` });
-  const hashes = lineHashes(bytes);
+  const hashes = lineHashes(line);
   if (!hashes) return bad('no-hash', 'has no valid integrity field ("hash" at the end): it was edited or damaged');
   if (hashes.claimed !== hashes.actual) return bad('hash-mismatch', 'does not match its hash: its content was changed after it was written');
   let value: unknown;
   try {
-    value = JSON.parse(bytes.toString('utf8'));
+    value = JSON.parse(line);
   } catch {
     return bad('not-json', 'is not valid JSON');
   }
@@ -89,21 +94,34 @@ function checkLine(bytes: Buffer, lineNo: number, prevHash: string): LineCheck {
 
 const PHYSICAL: ReadonlySet<Problem> = new Set(['no-hash', 'hash-mismatch', 'not-json']);
 
-function allNul(buf: Buffer, from: number, to: number): boolean {
-  for (let i = from; i < to; i++) if (buf[i] !== 0) return false;
+function allNul(text: string, from: number): boolean {
+  for (let i = from; i < text.length; i++) if (text.charCodeAt(i) !== 0) return false;
   return true;
 }
 
-/** Read a whole session file's bytes: validate every line and the chain, and classify any damage. */
-export function scanLog(buf: Buffer): LogScan {
+/**
+ * Read a whole session file's bytes: validate every line and the chain, and
+ * classify any damage. With `onEvent`, valid events are handed over one by one
+ * and not kept, which spares the garbage collector on a long session.
+ */
+export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keymap) => void): LogScan {
   const events: ParsedEvent[] = [];
+  let open: ParsedEvent | null = null;
   let keymap: Keymap | null = null;
   let lastHash = '';
+  // Work on the decoded text (one decode, as a plain reader would); count bytes beside it
+  // for the offsets a repair cuts at. In pure ASCII a character is a byte.
+  const text = buf.toString('utf8');
+  const ascii = isAscii(buf);
   let pos = 0;
+  let bytePos = 0;
   let lineNo = 0;
+  let valid = 0;
   const result = (tail: Damage | null, corruption: Damage | null): LogScan => ({
     events,
-    goodBytes: pos,
+    lines: valid,
+    open,
+    goodBytes: bytePos,
     totalBytes: buf.length,
     lastHash,
     keymap,
@@ -113,29 +131,34 @@ export function scanLog(buf: Buffer): LogScan {
   if (buf.length === 0) {
     return result(null, { line: 1, offset: 0, problem: 'empty', message: 'the file is empty: it holds no level' });
   }
-  while (pos < buf.length) {
+  while (pos < text.length) {
     lineNo++;
-    const nl = buf.indexOf(0x0a, pos);
+    const nl = text.indexOf('\n', pos);
     if (nl === -1) {
-      const nul = allNul(buf, pos, buf.length);
-      const damage: Damage = nul
-        ? { line: lineNo, offset: pos, problem: 'nul-padding', message: `NUL bytes after line ${lineNo - 1} (typical of a power cut)` }
-        : { line: lineNo, offset: pos, problem: 'torn', message: `line ${lineNo} is incomplete (the program stopped while writing it)` };
+      const damage: Damage = allNul(text, pos)
+        ? { line: lineNo, offset: bytePos, problem: 'nul-padding', message: `NUL bytes after line ${lineNo - 1} (typical of a power cut)` }
+        : { line: lineNo, offset: bytePos, problem: 'torn', message: `line ${lineNo} is incomplete (the program stopped while writing it)` };
       return lineNo === 1 ? result(null, { ...damage, message: `${damage.message}; the level was never created` }) : result(damage, null);
     }
-    const check = checkLine(buf.subarray(pos, nl), lineNo, lastHash);
+    const line = text.slice(pos, nl);
+    const check = checkLine(line, lineNo, lastHash);
     if (!check.ok) {
-      const damage: Damage = { line: lineNo, offset: pos, problem: check.problem, message: check.message };
-      const onlyPadding = allNul(buf, nl + 1, buf.length);
+      const damage: Damage = { line: lineNo, offset: bytePos, problem: check.problem, message: check.message };
       // Only physical damage of the very last line is cut off: a line whose own hash holds was
       // written whole, so a wrong seq or chain there is an edit, not a crash.
-      const repairable = lineNo > 1 && onlyPadding && PHYSICAL.has(check.problem);
+      const repairable = lineNo > 1 && allNul(text, nl + 1) && PHYSICAL.has(check.problem);
       return repairable ? result(damage, null) : result(null, damage);
     }
-    events.push(check.event);
-    if (check.keymap) keymap = check.keymap;
+    if (check.keymap) {
+      keymap = check.keymap;
+      open = check.event;
+    }
+    valid++;
+    if (onEvent) onEvent(check.event, keymap as Keymap);
+    else events.push(check.event);
     lastHash = check.hash;
     pos = nl + 1;
+    bytePos += (ascii ? line.length : Buffer.byteLength(line)) + 1;
   }
   return result(null, null);
 }

@@ -19,14 +19,14 @@ export function verdictOf(name: string, scan: LogScan): Verdict {
     previous = event.at;
   }
   if (damage) {
-    const kept = scan.events.length;
+    const kept = scan.lines;
     return { intact: false, summary: `${name}: ${damage.message} (${kept} line${kept === 1 ? '' : 's'} before it are intact)`, warnings };
   }
   const last = scan.events[scan.events.length - 1];
   const closed = last?.type === 'close' || last?.type === 'finish';
   return {
     intact: true,
-    summary: `${name}: intact, ${scan.events.length} lines, chain verified${closed ? '' : '; not closed cleanly (the last sitting was stopped or is still open)'}`,
+    summary: `${name}: intact, ${scan.lines} lines, chain verified${closed ? '' : '; not closed cleanly (the last sitting was stopped or is still open)'}`,
     warnings,
   };
 }

@@ -17,7 +17,7 @@ export function decide(state: LevelState, command: Command): Decision {
       switch (command.action) {
         case 'undo':
           return state.stack
-            ? { kind: 'record', payload: { type: 'undo', of: state.stack.grain.seq } }
+            ? { kind: 'record', payload: { type: 'undo', of: state.stack.seq } }
             : { kind: 'say', message: 'nothing to undo' };
         case 'traverse':
           return { kind: 'record', payload: { type: 'traverse', traverse: state.traverse + 1 } };

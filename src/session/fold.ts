@@ -1,6 +1,6 @@
+import type { Keymap } from '../keymap/keymap.js';
 import type { OpenEvent, SessionEvent } from './events.js';
 import { RECENT_EVENTS, type GrainStack, type LevelState } from './level-state.js';
-import type { Keymap } from '../keymap/keymap.js';
 
 export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
   return {
@@ -24,74 +24,129 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
   };
 }
 
+/**
+ * A private, writable copy of a state. The fold changes only drafts it made
+ * itself, so a replay of 100,000 events copies the counts once, not per event,
+ * while every state handed out stays untouched.
+ */
+type Draft = { -readonly [K in keyof LevelState]: LevelState[K] } & {
+  counts: Record<string, number>;
+  recent: SessionEvent[];
+  ignored: number[];
+};
+
+function draftOf(state: LevelState): Draft {
+  return { ...state, counts: { ...state.counts }, recent: [...state.recent], ignored: [...state.ignored] };
+}
+
 /** The stack without grain `seq`, or undefined when that grain is not counted. */
 function withoutGrain(stack: GrainStack | null, seq: number): GrainStack | null | undefined {
   const above: GrainStack[] = [];
   let s = stack;
-  while (s && s.grain.seq !== seq) {
+  while (s && s.seq !== seq) {
     above.push(s);
     s = s.below;
   }
   if (!s) return undefined;
   let rebuilt = s.below;
-  for (let i = above.length - 1; i >= 0; i--) rebuilt = { grain: (above[i] as GrainStack).grain, below: rebuilt };
+  for (let i = above.length - 1; i >= 0; i--) rebuilt = { ...(above[i] as GrainStack), below: rebuilt };
   return rebuilt;
 }
 
-function bump(counts: Readonly<Record<string, number>>, taxon: string, by: number): Record<string, number> {
-  const next = { ...counts, [taxon]: (counts[taxon] ?? 0) + by };
-  if (next[taxon] === 0) delete next[taxon];
-  return next;
+function findTaxon(stack: GrainStack | null, seq: number): string | undefined {
+  for (let s = stack; s; s = s.below) if (s.seq === seq) return s.taxon;
+  return undefined;
+}
+
+function step(d: Draft, event: SessionEvent): void {
+  d.lastSeq = event.seq;
+  d.lastAt = event.at;
+  d.recent.push(event);
+  if (d.recent.length > RECENT_EVENTS) d.recent.shift();
+  d.closed = false;
+  switch (event.type) {
+    case 'open':
+      // Only line 1 opens a level; the log reader refuses any other.
+      d.ignored.push(event.seq);
+      return;
+    case 'grain':
+      d.counts[event.taxon] = (d.counts[event.taxon] ?? 0) + 1;
+      d.grains++;
+      d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, below: d.stack };
+      return;
+    case 'undo': {
+      const stack = withoutGrain(d.stack, event.of);
+      if (stack === undefined) {
+        d.ignored.push(event.seq);
+        return;
+      }
+      const taxon = findTaxon(d.stack, event.of) as string;
+      d.counts[taxon] = (d.counts[taxon] ?? 0) - 1;
+      d.grains--;
+      d.stack = stack;
+      d.undos++;
+      return;
+    }
+    case 'traverse':
+      d.traverse = event.traverse;
+      return;
+    case 'note':
+      return;
+    case 'sitting':
+      d.sitting = event.sitting;
+      d.sittingStartedAt = event.at;
+      return;
+    case 'rules':
+      d.rules = event.rules;
+      return;
+    case 'repair':
+      d.repairs++;
+      return;
+    case 'close':
+      d.closed = true;
+      return;
+    case 'finish':
+      d.closed = true;
+      d.finished = true;
+      return;
+    default:
+      event satisfies never;
+  }
+}
+
+/** Counts of zero are dropped, so a fully undone taxon reads as never counted. */
+function finish(d: Draft): LevelState {
+  for (const taxon of Object.keys(d.counts)) if (d.counts[taxon] === 0) delete d.counts[taxon];
+  return d;
 }
 
 /** The state after one more event. Pure: `state` is not changed. */
 export function applyEvent(state: LevelState, event: SessionEvent): LevelState {
-  const recent = state.recent.length >= RECENT_EVENTS ? [...state.recent.slice(1), event] : [...state.recent, event];
-  const base = { ...state, lastSeq: event.seq, lastAt: event.at, recent, closed: false };
-  switch (event.type) {
-    case 'open':
-      // Only line 1 is an open event; the log reader refuses any other.
-      return { ...base, ignored: [...state.ignored, event.seq] };
-    case 'grain':
-      return {
-        ...base,
-        counts: bump(state.counts, event.taxon, 1),
-        grains: state.grains + 1,
-        stack: { grain: { seq: event.seq, taxon: event.taxon, traverse: event.traverse }, below: state.stack },
-      };
-    case 'undo': {
-      const stack = withoutGrain(state.stack, event.of);
-      if (stack === undefined) return { ...base, ignored: [...state.ignored, event.seq] };
-      const taxon = findTaxon(state.stack, event.of) as string;
-      return { ...base, counts: bump(state.counts, taxon, -1), grains: state.grains - 1, stack, undos: state.undos + 1 };
-    }
-    case 'traverse':
-      return { ...base, traverse: event.traverse };
-    case 'note':
-      return base;
-    case 'sitting':
-      return { ...base, sitting: event.sitting, sittingStartedAt: event.at };
-    case 'rules':
-      return { ...base, rules: event.rules };
-    case 'repair':
-      return { ...base, repairs: state.repairs + 1 };
-    case 'close':
-      return { ...base, closed: true };
-    case 'finish':
-      return { ...base, closed: true, finished: true };
-    default:
-      return event satisfies never;
-  }
+  const d = draftOf(state);
+  step(d, event);
+  return finish(d);
 }
 
-function findTaxon(stack: GrainStack | null, seq: number): string | undefined {
-  for (let s = stack; s; s = s.below) if (s.grain.seq === seq) return s.grain.taxon;
-  return undefined;
+/** A fold fed one event at a time, for events streamed from a file. */
+export interface Folding {
+  add(event: SessionEvent): void;
+  /** The state so far; the fold can go on after it. */
+  state(): LevelState;
 }
 
-/** The state of a level from its events; the first must be its open event. */
+export function startFold(open: OpenEvent, keymap: Keymap): Folding {
+  const d = draftOf(initialState(open, keymap));
+  return {
+    add: (event) => {
+      if (event.seq !== open.seq) step(d, event);
+    },
+    state: () => finish(draftOf(d)),
+  };
+}
+
+/** The state of a level from its events (the open event itself is skipped). */
 export function foldEvents(open: OpenEvent, keymap: Keymap, events: Iterable<SessionEvent>): LevelState {
-  let state = initialState(open, keymap);
-  for (const event of events) if (event.seq !== open.seq) state = applyEvent(state, event);
-  return state;
+  const folding = startFold(open, keymap);
+  for (const event of events) folding.add(event);
+  return folding.state();
 }

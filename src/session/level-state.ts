@@ -9,8 +9,7 @@ export interface CountedGrain {
 }
 
 /** Grains still counted, newest first: undo pops in O(1) and nothing is copied. */
-export interface GrainStack {
-  readonly grain: CountedGrain;
+export interface GrainStack extends CountedGrain {
   readonly below: GrainStack | null;
 }
 

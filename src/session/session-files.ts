@@ -8,7 +8,7 @@ import { SessionLock } from '../log/session-lock.js';
 import { SessionWriter, type WriterOptions } from '../log/session-writer.js';
 import { sameRules, type RuleSet } from '../rules/rule-set.js';
 import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent } from './events.js';
-import { applyEvent, foldEvents } from './fold.js';
+import { applyEvent, foldEvents, startFold, type Folding } from './fold.js';
 import type { LevelState } from './level-state.js';
 
 export interface OpenedLevel {
@@ -35,20 +35,24 @@ function readBytes(path: string): Buffer {
   }
 }
 
-function stateOf(scan: LogScan): LevelState {
-  const open = scan.events[0] as OpenEvent | undefined;
-  if (!open || !scan.keymap) throw new Error('scan without a valid open line');
-  return foldEvents(open, scan.keymap, scan.events);
+/** Scan a file's bytes and fold its valid events as they are read, keeping none of them. */
+function scanAndFold(bytes: Buffer): { scan: LogScan; state: LevelState | null } {
+  let folding: Folding | null = null;
+  const scan = scanLog(bytes, (event, keymap) => {
+    folding ??= startFold(event as OpenEvent, keymap);
+    folding.add(event);
+  });
+  return { scan, state: (folding as Folding | null)?.state() ?? null };
 }
 
 /** Read a level without locking or changing it: for summary, export, audit. */
 export function readLevel(path: string): { scan: LogScan; state: LevelState; warnings: string[] } {
-  const scan = scanLog(readBytes(path));
-  if (scan.corruption) {
-    throw new ExineError(`${path}: ${scan.corruption.message}; nothing was read (exine verify ${path} shows the details)`);
+  const { scan, state } = scanAndFold(readBytes(path));
+  if (scan.corruption || !state) {
+    throw new ExineError(`${path}: ${scan.corruption?.message}; nothing was read (exine verify ${path} shows the details)`);
   }
   const warnings = scan.tail ? [`${path}: ${scan.tail.message}; that line is left out (exine count repairs it)`] : [];
-  return { scan, state: stateOf(scan), warnings };
+  return { scan, state, warnings };
 }
 
 /** Create a new level file, holding its lock; the first sitting starts. */
@@ -92,10 +96,10 @@ export function resumeLevel(path: string, options: WriterOptions & { rules?: Rul
     const notices: string[] = [];
     if (lock.tookOverFrom) notices.push(`took over a stale lock left by ${lock.tookOverFrom}`);
     const bytes = readBytes(path);
-    const scan = scanLog(bytes);
-    if (scan.corruption) {
+    const { scan, state: folded } = scanAndFold(bytes);
+    if (scan.corruption || !folded) {
       throw new ExineError(
-        `${path}: ${scan.corruption.message}; it was not opened for counting and nothing was changed (exine verify ${path} for details)`,
+        `${path}: ${scan.corruption?.message}; it was not opened for counting and nothing was changed (exine verify ${path} for details)`,
       );
     }
     let repaired = null;
@@ -105,7 +109,7 @@ export function resumeLevel(path: string, options: WriterOptions & { rules?: Rul
         `${scan.tail.message}: cut ${repaired.cutBytes} bytes off the end, saved in ${repaired.backup}; every grain before it is kept`,
       );
     }
-    let state = stateOf(scan);
+    let state = folded;
     if (!repaired && !state.closed) {
       notices.push('the last sitting was not closed cleanly (the program was stopped); every grain it showed is on disk');
     }

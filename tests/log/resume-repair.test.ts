@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { scanLog } from '../../src/log/scan-log.js';
 import { readLevel, resumeLevel } from '../../src/session/session-files.js';
 import { tempDir } from '../helpers/temp-dir.js';
-import { grain, openPayload, sessionText } from '../helpers/levels.js';
+import { TINY_KEYMAP, grain, openPayload, sessionText } from '../helpers/levels.js';
 
 const body = sessionText([openPayload(), { type: 'sitting', sitting: 1 }, grain('Alnus'), grain('Betula'), grain('Betula', 1, 'b')]);
 const lastLine = sessionText([openPayload(), { type: 'sitting', sitting: 1 }, grain('Alnus'), grain('Betula'), grain('Betula', 1, 'b'), grain('Corylus')]).slice(body.length);
@@ -60,6 +60,32 @@ describe('resuming a level', () => {
       expect([scan.tail, scan.corruption]).toEqual([null, null]);
       expect(scan.events.slice(5).map((e) => e.type)).toEqual(['repair', 'sitting']);
     }
+  });
+
+  it('repairs a torn line of non-ASCII text cut inside a multi-byte character, at every byte', () => {
+    const keymap = { ...TINY_KEYMAP, keys: { ...TINY_KEYMAP.keys, e: { taxon: 'Æsculus—type', group: 'trees' as const } } };
+    const head = sessionText([openPayload(keymap), grain('Æsculus—type', 1, 'e'), { type: 'note', text: 'cf. Tilia, très abîmé 🌲', grain: 2, stage: null }]);
+    const full = sessionText([openPayload(keymap), grain('Æsculus—type', 1, 'e'), { type: 'note', text: 'cf. Tilia, très abîmé 🌲', grain: 2, stage: null }, grain('Æsculus—type', 1, 'e')]);
+    const headBytes = Buffer.from(head);
+    const tail = Buffer.from(full).subarray(headBytes.length);
+    for (let cut = 1; cut < tail.length; cut++) {
+      const path = join(tempDir(), 'l.jsonl');
+      writeFileSync(path, Buffer.concat([headBytes, tail.subarray(0, cut)]));
+      const opened = resumeLevel(path);
+      opened.writer.close();
+      expect(opened.state.counts, `cut ${cut}`).toEqual({ 'Æsculus—type': 1 });
+      expect(readFileSync(path).subarray(0, headBytes.length).equals(headBytes)).toBe(true);
+      expect(scanLog(readFileSync(path)).corruption).toBeNull();
+    }
+  });
+
+  it('finds an invalid byte inside a line as damage', () => {
+    const path = join(tempDir(), 'l.jsonl');
+    const bytes = Buffer.from(body);
+    const at = bytes.indexOf('"taxon":"Betula","traverse"') + 9;
+    bytes[at] = 0xff;
+    writeFileSync(path, bytes);
+    expect(() => resumeLevel(path)).toThrow(/line 4 does not match its hash/);
   });
 
   it('refuses a file with damage before its end and changes nothing', () => {

@@ -55,7 +55,7 @@ describe('the counting screen', () => {
     await s.type('o');
     const state = s.session.getSnapshot().state;
     expect(state.counts).toEqual({ Corylus: 1, Poaceae: 1 });
-    expect(state.stack?.grain).toMatchObject({ taxon: 'Poaceae', traverse: 2 });
+    expect(state.stack).toMatchObject({ taxon: 'Poaceae', traverse: 2 });
     s.session.shutdown();
   });
 

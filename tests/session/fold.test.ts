@@ -26,14 +26,14 @@ describe('the fold of a level', () => {
   it('an undo cancels the grain it names, and only that one', () => {
     const s = given([grain('Alnus'), grain('Betula'), { type: 'undo', of: 3 }]);
     expect(s.counts).toEqual({ Alnus: 1 });
-    expect(s.stack?.grain.seq).toBe(2);
+    expect(s.stack?.seq).toBe(2);
     expect(s.undos).toBe(1);
   });
 
   it('an undo of an old grain removes it from the middle of the stack', () => {
     const s = given([grain('Alnus'), grain('Betula'), grain('Corylus'), { type: 'undo', of: 2 }]);
     expect(s.counts).toEqual({ Betula: 1, Corylus: 1 });
-    expect([s.stack?.grain.taxon, s.stack?.below?.grain.taxon, s.stack?.below?.below]).toEqual(['Corylus', 'Betula', null]);
+    expect([s.stack?.taxon, s.stack?.below?.taxon, s.stack?.below?.below]).toEqual(['Corylus', 'Betula', null]);
   });
 
   it('an undo of a grain that is not counted changes no count and is reported', () => {
@@ -51,7 +51,7 @@ describe('the fold of a level', () => {
       { type: 'close' },
     ]);
     expect(s.traverse).toBe(2);
-    expect(s.stack?.grain.traverse).toBe(2);
+    expect(s.stack?.traverse).toBe(2);
     expect(s.sitting).toBe(1);
     expect(s.closed).toBe(true);
     const later = applyEvent(s, { type: 'sitting', sitting: 2, seq: 7, at: at(7) });

@@ -1,0 +1,11 @@
+// npm run bench: speed measured as ratios against baselines taken in the same run, on the same disk.
+import { cpus } from 'node:os';
+import { benchFirstFrame } from './first-frame.js';
+import { benchResume } from './resume.js';
+import { benchTallyPath } from './tally-path.js';
+
+const out = (lines: string[]) => process.stdout.write(`${lines.join('\n')}\n\n`);
+process.stdout.write(`exine benchmark · node ${process.version} · ${cpus()[0]?.model ?? 'cpu'} × ${cpus().length}\n\n`);
+out(benchTallyPath());
+out(benchResume());
+out(await benchFirstFrame());

@@ -1,0 +1,44 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { eventSchema, isPlainGrain, parseEventObject } from '../../src/log/event-schema.js';
+
+const grainSchema = eventSchema.options.find((o) => o.shape.type.value === 'grain')!;
+
+describe('event validation', () => {
+  it('property: the direct grain check never accepts what the zod schema rejects (fast-check)', () => {
+    const near = fc.record(
+      {
+        seq: fc.oneof(fc.integer({ min: -3, max: 1e6 }), fc.double(), fc.constant('3')),
+        at: fc.oneof(
+          fc.date({ min: new Date('1900-01-01'), max: new Date('2200-01-01'), noInvalidDate: true }).map((d) => d.toISOString()),
+          fc.constantFrom('2026-02-29T10:00:00.000Z', '2024-02-29T10:00:00.000Z', '2026-13-01T00:00:00.000Z', '2026-11-01T08:00:00Z', '2026-11-01 08:00:00.000Z', '2026-11-01T24:00:00.000Z'),
+          fc.string(),
+        ),
+        prev: fc.oneof(fc.string(), fc.constant(null)),
+        type: fc.constantFrom('grain', 'undo'),
+        taxon: fc.oneof(fc.string(), fc.constant(7)),
+        traverse: fc.oneof(fc.integer({ min: -2, max: 50 }), fc.double(), fc.constant(null)),
+        key: fc.oneof(fc.string(), fc.constant(undefined)),
+      },
+      { requiredKeys: ['type'] },
+    );
+    fc.assert(
+      fc.property(near, (v) => {
+        if (isPlainGrain(v as Record<string, unknown>)) expect(grainSchema.safeParse(v).success).toBe(true);
+      }),
+      { numRuns: 5000 },
+    );
+  });
+
+  it('rejects an impossible date that only a calendar-aware check catches', () => {
+    const line = { seq: 3, at: '2026-02-29T10:00:00.000Z', prev: 'x', type: 'grain', taxon: 'Alnus', traverse: 1, key: 'a' };
+    expect(parseEventObject(line).ok).toBe(false);
+    expect(parseEventObject({ ...line, at: '2024-02-29T10:00:00.000Z' }).ok).toBe(true);
+  });
+
+  it('keeps unknown fields on the event it returns', () => {
+    const line = { seq: 3, at: '2026-02-20T10:00:00.000Z', prev: 'x', type: 'undo', of: 2, reason: 'slipped' };
+    const r = parseEventObject(line);
+    expect(r.ok && (r.event as unknown as { reason: string }).reason).toBe('slipped');
+  });
+});
