@@ -10,6 +10,21 @@ import { SumPanel, sumPanelHeight } from './sum-panel.js';
 import { themeFor } from './theme.js';
 import { TABLE_WIDTH, TotalsTable } from './totals-table.js';
 
+/** The terminal's size, following resizes (Ink re-draws on resize but does not re-render components). */
+function useTerminalSize(): { columns: number; rows: number } {
+  const { stdout } = useStdout();
+  const read = () => ({ columns: stdout.columns ?? 80, rows: stdout.rows ?? 24 });
+  const [size, setSize] = useState(read);
+  useEffect(() => {
+    const onResize = () => setSize(read());
+    stdout.on('resize', onResize);
+    return () => {
+      stdout.off('resize', onResize);
+    };
+  }, [stdout]);
+  return size;
+}
+
 function useNow(intervalMs: number): number {
   const [now, setNow] = useState(() => Date.now());
   useEffect(() => {
@@ -29,7 +44,7 @@ export interface CountScreenProps {
 
 export function CountScreen({ session, columns, rows }: CountScreenProps) {
   const { exit } = useApp();
-  const { stdout } = useStdout();
+  const terminal = useTerminalSize();
   const snapshot = useSyncExternalStore(session.subscribe, session.getSnapshot);
   const { state } = snapshot;
   const table = useMemo(() => levelTable(state), [state]);
@@ -44,9 +59,10 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
     }
   });
 
-  const width = columns ?? stdout.columns ?? 80;
-  const height = Math.max(12, (rows ?? stdout.rows ?? 24) - 1);
-  const mainHeight = height - 4;
+  const width = columns ?? terminal.columns;
+  const height = Math.max(12, (rows ?? terminal.rows) - 1);
+  // Two header lines, two status lines (an opening notice can be long), one key line.
+  const mainHeight = height - 5;
   const sideWidth = Math.max(20, width - TABLE_WIDTH - 2);
   // Recent events get what the sum panel leaves: one line for its margin, one for its title.
   const sideRoomForRecent = Math.max(1, mainHeight - sumPanelHeight(table, state.rules.targetSum) - 2);
@@ -73,9 +89,11 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
           </Box>
         </Box>
       </Box>
-      <Text color={snapshot.message?.tone === 'error' ? theme.error : theme.warning} wrap="truncate-end">
-        {snapshot.readOnly ? `READ-ONLY: ${snapshot.readOnly}` : (snapshot.message?.text ?? ' ')}
-      </Text>
+      <Box height={2} overflow="hidden">
+        <Text color={snapshot.message?.tone === 'error' || snapshot.readOnly ? theme.error : theme.warning} wrap="wrap">
+          {snapshot.readOnly ? `READ-ONLY: ${snapshot.readOnly}` : (snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '))}
+        </Text>
+      </Box>
       <Text dimColor={theme.dim} wrap="truncate-end">
         {`${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} next traverse · Ctrl-C save & quit · * not in pollen sum`}
       </Text>

@@ -39,6 +39,7 @@ export async function runCountScreen(opened: OpenedLevel): Promise<number> {
     process.off('uncaughtException', onCrash);
   }
   const table = levelTable(session.getSnapshot().state);
+  for (const notice of opened.notices) process.stdout.write(`on opening: ${notice}\n`);
   process.stdout.write(`saved ${session.path}: ${table.grains} grains, pollen sum ${table.pollenSum}\n`);
   return exitCode;
 }

@@ -10,8 +10,10 @@ export type Tone = 'info' | 'warning' | 'error';
 
 export interface Snapshot {
   readonly state: LevelState;
-  /** The latest message for the analyst, if any. */
+  /** The latest message for the analyst, if any; cleared by the next recorded event. */
   readonly message: { readonly text: string; readonly tone: Tone } | null;
+  /** What opening the file found (a repair, an unclean exit): shown for the whole sitting. */
+  readonly notice: string | null;
   readonly readOnly: string | null;
   readonly closed: boolean;
 }
@@ -31,7 +33,8 @@ export class CountingSession {
   ) {
     this.snapshot = {
       state,
-      message: notices.length ? { text: notices.join(' · '), tone: 'warning' } : null,
+      message: null,
+      notice: notices.length ? notices.join(' · ') : null,
       readOnly: writer.readOnly,
       closed: false,
     };

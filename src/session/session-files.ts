@@ -106,7 +106,7 @@ export function resumeLevel(path: string, options: WriterOptions & { rules?: Rul
     if (scan.tail) {
       repaired = repairTail(path, bytes, scan.tail, (options.clock ?? (() => new Date()))());
       notices.push(
-        `${scan.tail.message}: cut ${repaired.cutBytes} bytes off the end, saved in ${repaired.backup}; every grain before it is kept`,
+        `${scan.tail.message}: ${repaired.cutBytes} bytes cut off and kept in ${repaired.backup}`,
       );
     }
     let state = folded;

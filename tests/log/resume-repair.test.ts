@@ -50,7 +50,7 @@ describe('resuming a level', () => {
       const opened = resumeLevel(path);
       opened.writer.close();
       expect(opened.state.counts, `cut ${cut}`).toEqual({ Alnus: 1, Betula: 2 });
-      expect(opened.notices[0], `cut ${cut}`).toMatch(/line 6 is incomplete.*saved in l\.jsonl\.cut-.*\.bak/);
+      expect(opened.notices[0], `cut ${cut}`).toMatch(/line 6 is incomplete.*bytes cut off and kept in l\.jsonl\.cut-.*\.bak/);
       const backups = readdirSync(dir).filter((f) => f.endsWith('.bak'));
       expect(backups.length).toBe(1);
       expect(readFileSync(join(dir, backups[0] as string), 'utf8')).toBe(lastLine.slice(0, cut));

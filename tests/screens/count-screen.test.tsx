@@ -1,19 +1,19 @@
-import { copyFileSync } from 'node:fs';
+import { appendFileSync, copyFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { render } from 'ink-testing-library';
 import { describe, expect, it } from 'vitest';
 import { CountScreen } from '../../src/screens/count-screen.js';
 import { CountingSession } from '../../src/session/counting-session.js';
 import { readLevel, resumeLevel } from '../../src/session/session-files.js';
-import { newLevelFile } from '../helpers/levels.js';
+import { TINY_KEYMAP, lowland, newLevelFile } from '../helpers/levels.js';
 import { tempDir } from '../helpers/temp-dir.js';
 
 const tick = () => new Promise((r) => setTimeout(r, 30));
 
-async function screenFor(path?: string, size = { columns: 80, rows: 24 }) {
-  const level = path ? { path, ...resumeLevel(path) } : newLevelFile(tempDir());
+async function screenFor(path?: string, size: { columns: number; rows: number } | null = { columns: 80, rows: 24 }, keymap = TINY_KEYMAP) {
+  const level = path ? { path, ...resumeLevel(path) } : newLevelFile(tempDir(), 'level.jsonl', keymap);
   const session = new CountingSession(level.writer, level.state, level.notices);
-  const ui = render(<CountScreen session={session} {...size} />);
+  const ui = render(<CountScreen session={session} {...(size ?? {})} />);
   await tick();
   const type = async (keys: string) => {
     ui.stdin.write(keys);
@@ -112,6 +112,36 @@ describe('the counting screen', () => {
       expect(frame).toMatch(part);
     }
     expect(frame.split('\n').length).toBeLessThan(24);
+    s.session.shutdown();
+  });
+
+  it('keeps what opening found (a repaired tail) on screen while counting goes on', async () => {
+    const first = await screenFor();
+    await first.type('aab');
+    first.session.shutdown();
+    first.unmount();
+    appendFileSync(first.path, '{"seq":9,"at":"2026-1');
+    const s = await screenFor(first.path);
+    await s.type('aa');
+    expect(s.lastFrame()).toMatch(/On opening: line 7 is incomplete[\s\S]*21\s+bytes cut off and\s+kept in\s+level\.jsonl\.cut-[\s\S]*\.bak/);
+    expect(s.session.getSnapshot().state.counts).toEqual({ Alnus: 4, Betula: 1 });
+    s.session.shutdown();
+  });
+
+  it('re-lays out when the terminal is resized', async () => {
+    const s = await screenFor(undefined, null, lowland());
+    const stdout = s.stdout as unknown as NodeJS.EventEmitter;
+    const size = { columns: 80, rows: 12 };
+    Object.defineProperty(stdout, 'columns', { get: () => size.columns });
+    Object.defineProperty(stdout, 'rows', { get: () => size.rows });
+    stdout.emit('resize');
+    await tick();
+    expect(s.lastFrame()).toMatch(/more taxa not shown/);
+    size.rows = 40;
+    stdout.emit('resize');
+    await tick();
+    expect(s.lastFrame()).not.toMatch(/more taxa not shown/);
+    expect(s.lastFrame()).toMatch(/Lycopodium/);
     s.session.shutdown();
   });
 
