@@ -35,7 +35,8 @@ Options
 
 Keys
   taxon keys count one grain each; Backspace undoes the last grain; Tab starts
-  the next traverse; Ctrl-C saves and quits (every grain is on disk already).
+  the next traverse (the keymap may move these); Ctrl-F then y marks the level
+  finished and quits; Ctrl-C quits (every grain is on disk already).
 
 Examples
   exine count km1-112cm.jsonl --core KM-1 --depth 112 --slide KM1-112-A

@@ -6,6 +6,7 @@ export type KeyPress =
   | { readonly kind: 'enter' }
   | { readonly kind: 'escape' }
   | { readonly kind: 'interrupt' }
+  | { readonly kind: 'finish' }
   | { readonly kind: 'up' }
   | { readonly kind: 'down' }
   | { readonly kind: 'ignored'; readonly what: string };
@@ -32,6 +33,7 @@ const CONTROL: Readonly<Record<string, KeyPress>> = {
   '\x7f': { kind: 'backspace' },
   '\b': { kind: 'backspace' },
   '\x03': { kind: 'interrupt' },
+  '\x06': { kind: 'finish' },
   '\x1b': { kind: 'escape' },
 };
 
@@ -43,6 +45,7 @@ const CONTROL: Readonly<Record<string, KeyPress>> = {
  */
 export function splitKeys(input: string, flags: InkKeyFlags): KeyPress[] {
   if (flags.ctrl && input === 'c') return [{ kind: 'interrupt' }];
+  if (flags.ctrl && input === 'f') return [{ kind: 'finish' }];
   if (input === '') {
     if (flags.return) return [{ kind: 'enter' }];
     if (flags.tab) return [{ kind: 'tab' }];

@@ -5,6 +5,7 @@ export type Command =
   | { readonly kind: 'tally'; readonly key: string; readonly taxon: string }
   | { readonly kind: 'action'; readonly action: ActionName }
   | { readonly kind: 'quit' }
+  | { readonly kind: 'finish' }
   | { readonly kind: 'unmapped'; readonly label: string }
   | { readonly kind: 'none' };
 
@@ -25,9 +26,10 @@ function keyNameOf(press: KeyPress): KeyName | null {
   }
 }
 
-/** What a key means under a keymap. Ctrl-C always quits and cannot be mapped. */
+/** What a key means under a keymap. Ctrl-C (quit) and Ctrl-F (finish the level) cannot be mapped. */
 export function resolveKey(keymap: Keymap, press: KeyPress): Command {
   if (press.kind === 'interrupt') return { kind: 'quit' };
+  if (press.kind === 'finish') return { kind: 'finish' };
   const name = keyNameOf(press);
   if (name === null) return { kind: 'none' };
   for (const [action, key] of Object.entries(keymap.actions)) {

@@ -95,7 +95,7 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
         </Text>
       </Box>
       <Text dimColor={theme.dim} wrap="truncate-end">
-        {`${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} next traverse · Ctrl-C save & quit · * not in pollen sum`}
+        {`${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} traverse · Ctrl-F finish · Ctrl-C quit · * outside sum`}
       </Text>
     </Box>
   );

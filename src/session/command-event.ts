@@ -6,6 +6,7 @@ export type Decision =
   | { readonly kind: 'record'; readonly payload: EventPayload }
   | { readonly kind: 'say'; readonly message: string }
   | { readonly kind: 'quit' }
+  | { readonly kind: 'confirm-finish' }
   | { readonly kind: 'nothing' };
 
 /** The event a command should record in the current state, or why it records nothing. */
@@ -28,6 +29,8 @@ export function decide(state: LevelState, command: Command): Decision {
       }
     case 'quit':
       return { kind: 'quit' };
+    case 'finish':
+      return { kind: 'confirm-finish' };
     case 'unmapped':
       return { kind: 'say', message: `key "${command.label}" is not in the keymap: nothing counted` };
     case 'none':

@@ -16,6 +16,8 @@ export interface Snapshot {
   readonly notice: string | null;
   readonly readOnly: string | null;
   readonly closed: boolean;
+  /** Set while the screen asks "finish this level?": the next key answers. */
+  readonly confirmingFinish: boolean;
 }
 
 /**
@@ -37,6 +39,7 @@ export class CountingSession {
       notice: notices.length ? notices.join(' · ') : null,
       readOnly: writer.readOnly,
       closed: false,
+      confirmingFinish: false,
     };
   }
 
@@ -63,6 +66,7 @@ export class CountingSession {
   }
 
   press(key: KeyPress): 'quit' | undefined {
+    if (this.snapshot.confirmingFinish) return this.answerFinish(key);
     const decision = decide(this.snapshot.state, resolveKey(this.snapshot.state.keymap, key));
     switch (decision.kind) {
       case 'record':
@@ -73,9 +77,23 @@ export class CountingSession {
         return undefined;
       case 'quit':
         return 'quit';
+      case 'confirm-finish':
+        this.publish({ confirmingFinish: true, message: { text: 'Finish this level? y = finish and quit, any other key = go on counting', tone: 'warning' } });
+        return undefined;
       case 'nothing':
         return undefined;
     }
+  }
+
+  /** The key after Ctrl-F: "y" finishes the level and quits; any other key only cancels (and counts nothing). */
+  private answerFinish(key: KeyPress): 'quit' | undefined {
+    if (key.kind === 'interrupt') return 'quit';
+    if (key.kind === 'char' && (key.char === 'y' || key.char === 'Y')) {
+      this.publish({ confirmingFinish: false });
+      return this.record({ type: 'finish' }) ? 'quit' : undefined;
+    }
+    this.publish({ confirmingFinish: false, message: { text: 'not finished: counting goes on (that key counted nothing)', tone: 'info' } });
+    return undefined;
   }
 
   /** Append one event and, only once it is on disk, move the state. */
@@ -96,7 +114,9 @@ export class CountingSession {
   shutdown(): void {
     if (this.snapshot.closed) return;
     try {
-      if (!this.writer.readOnly) this.writer.append({ type: 'close' });
+      // A finish event already ends the sitting cleanly.
+      const ended = this.snapshot.state.recent.at(-1)?.type === 'finish';
+      if (!this.writer.readOnly && !ended) this.writer.append({ type: 'close' });
     } catch {
       // A missing close is reported at the next resume as "not closed cleanly"; no grain depends on it.
     } finally {

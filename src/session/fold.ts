@@ -18,7 +18,7 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     sitting: 0,
     sittingStartedAt: open.at,
     closed: false,
-    finished: false,
+    finishedAt: null,
     repairs: 0,
     ignored: [],
   };
@@ -107,7 +107,7 @@ function step(d: Draft, event: SessionEvent): void {
       return;
     case 'finish':
       d.closed = true;
-      d.finished = true;
+      d.finishedAt = event.at;
       return;
     default:
       event satisfies never;

@@ -32,7 +32,8 @@ export interface LevelState {
   readonly sittingStartedAt: string;
   /** True when the last event is a close or finish: the previous run ended cleanly. */
   readonly closed: boolean;
-  readonly finished: boolean;
+  /** When the analyst marked the level finished (the latest time), or null. */
+  readonly finishedAt: string | null;
   readonly repairs: number;
   /** Events the fold could not apply (an undo of a grain that is not counted): kept, reported. */
   readonly ignored: readonly number[];

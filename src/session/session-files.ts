@@ -110,7 +110,9 @@ export function resumeLevel(path: string, options: WriterOptions & { rules?: Rul
       );
     }
     let state = folded;
-    if (!repaired && !state.closed) {
+    if (state.finishedAt) {
+      notices.push(`this level was marked finished on ${state.finishedAt.slice(0, 10)}; grains counted now are added after that`);
+    } else if (!repaired && !state.closed) {
       notices.push('the last sitting was not closed cleanly (the program was stopped); every grain it showed is on disk');
     }
     const writer = SessionWriter.resume(path, scan.goodBytes, state.lastSeq, scan.lastHash, lock, options);

@@ -115,6 +115,23 @@ describe('the counting screen', () => {
     s.session.shutdown();
   });
 
+  it('Ctrl-F asks before finishing: another key cancels and counts nothing; y finishes and quits', async () => {
+    const s = await screenFor();
+    await s.type('aa\x06');
+    expect(s.lastFrame()).toMatch(/Finish this level\? y = finish and quit/);
+    await s.type('b');
+    expect(s.lastFrame()).toMatch(/not finished: counting goes on/);
+    expect(s.session.getSnapshot().state.counts).toEqual({ Alnus: 2 });
+    await s.type('\x06y');
+    expect(s.session.getSnapshot().closed).toBe(true);
+    const state = readLevel(s.path).state;
+    expect(state.finishedAt).not.toBeNull();
+    expect(state.recent.at(-1)?.type).toBe('finish');
+    const again = resumeLevel(s.path);
+    again.writer.close();
+    expect(again.notices.join()).toMatch(/this level was marked finished on \d{4}-\d\d-\d\d/);
+  });
+
   it('keeps what opening found (a repaired tail) on screen while counting goes on', async () => {
     const first = await screenFor();
     await first.type('aab');

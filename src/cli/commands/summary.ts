@@ -34,6 +34,7 @@ export function summaryCommand(args: string[]): number {
       traverses: state.traverse,
       sittings: state.sitting,
       closedCleanly: state.closed,
+      finishedAt: state.finishedAt,
       groups: table.groupTotals,
       taxa: table.rows.map((r) => ({
         key: r.key,
@@ -52,6 +53,7 @@ export function summaryCommand(args: string[]): number {
   const where = [h.site, h.core].filter(Boolean).join(' ');
   const lines = [
     `${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` (depth ${h.depth})`} · slide ${h.slide ?? '–'}${h.analyst ? ` · ${h.analyst}` : ''}`,
+    state.finishedAt ? `finished ${state.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
     `pollen sum ${table.pollenSum} of target ${state.rules.targetSum}${table.pollenSum >= state.rules.targetSum ? ' (reached)' : ''} · ${table.grains} grains · ${state.traverse} traverses · ${state.sitting} sittings`,
     '',
     `${fit('taxon', 22)} ${fit('group', 14)} ${right('count', 6)} ${right('%', 6)}  95% CI (Wilson)`,
