@@ -22,7 +22,7 @@ export function bigSession(events: number): string {
     if (seq === 1) {
       payload = { type: 'open', format: FORMAT_VERSION, session: 'b'.repeat(32), level: 'bench', depth: 1, site: null, core: null, slide: null, analyst: null, keymap, rules: DEFAULT_RULES };
     } else if (seq % 60 === 0) payload = { type: 'traverse', traverse: ++traverse };
-    else if (seq % 97 === 0) payload = { type: 'undo', of: seq - 1 };
+    else if (seq % 97 === 0 && (seq - 1) % 60 !== 0) payload = { type: 'undo', of: seq - 1 };
     else {
       const [key, b] = keys[Math.floor(random() * keys.length)] as [string, { taxon: string }];
       payload = { type: 'grain', taxon: b.taxon, traverse, key };

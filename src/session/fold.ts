@@ -39,22 +39,25 @@ function draftOf(state: LevelState): Draft {
   return { ...state, counts: { ...state.counts }, recent: [...state.recent], ignored: [...state.ignored] };
 }
 
-/** The stack without grain `seq`, or undefined when that grain is not counted. */
+/**
+ * The stack without grain `seq`, or undefined when that grain is not counted.
+ * The stack is ordered by seq, newest first, so the search stops below `seq`.
+ */
 function withoutGrain(stack: GrainStack | null, seq: number): GrainStack | null | undefined {
   const above: GrainStack[] = [];
   let s = stack;
-  while (s && s.seq !== seq) {
+  while (s && s.seq > seq) {
     above.push(s);
     s = s.below;
   }
-  if (!s) return undefined;
+  if (!s || s.seq !== seq) return undefined;
   let rebuilt = s.below;
   for (let i = above.length - 1; i >= 0; i--) rebuilt = { ...(above[i] as GrainStack), below: rebuilt };
   return rebuilt;
 }
 
-function findTaxon(stack: GrainStack | null, seq: number): string | undefined {
-  for (let s = stack; s; s = s.below) if (s.seq === seq) return s.taxon;
+function taxonOf(stack: GrainStack | null, seq: number): string | undefined {
+  for (let s = stack; s && s.seq >= seq; s = s.below) if (s.seq === seq) return s.taxon;
   return undefined;
 }
 
@@ -75,12 +78,12 @@ function step(d: Draft, event: SessionEvent): void {
       d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, below: d.stack };
       return;
     case 'undo': {
+      const taxon = d.stack?.seq === event.of ? d.stack.taxon : taxonOf(d.stack, event.of);
       const stack = withoutGrain(d.stack, event.of);
-      if (stack === undefined) {
+      if (stack === undefined || taxon === undefined) {
         d.ignored.push(event.seq);
         return;
       }
-      const taxon = findTaxon(d.stack, event.of) as string;
       d.counts[taxon] = (d.counts[taxon] ?? 0) - 1;
       d.grains--;
       d.stack = stack;
