@@ -26,7 +26,7 @@ export function verdictOf(name: string, scan: LogScan): Verdict {
   const closed = last?.type === 'close' || last?.type === 'finish';
   return {
     intact: true,
-    summary: `${name}: intact, ${scan.lines} lines, chain verified${closed ? '' : '; not closed cleanly (the last sitting was stopped or is still open)'}`,
+    summary: `${name}: intact, ${scan.lines} lines, chain verified, last hash ${scan.lastHash}${closed ? '' : '; not closed cleanly (the last sitting was stopped or is still open)'}`,
     warnings,
   };
 }

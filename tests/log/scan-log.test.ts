@@ -27,7 +27,7 @@ describe('reading a session file', () => {
   });
 
   it('keeps fields it does not know (written by a later version)', () => {
-    const withExtra = sessionText([openPayload(), { ...grain('Alnus'), stageX: 12.5 } as EventPayload]);
+    const withExtra = sessionText([openPayload(), { ...grain('Alnus'), stageX: 12.5 } as unknown as EventPayload]);
     const scan = scanLog(Buffer.from(withExtra));
     expect(scan.corruption).toBeNull();
     expect((scan.events[1] as unknown as { stageX: number }).stageX).toBe(12.5);
