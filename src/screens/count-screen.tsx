@@ -4,6 +4,7 @@ import { splitKeys } from '../input/key-press.js';
 import { keyLabel } from '../keymap/keymap.js';
 import { formatDuration } from '../session/describe-event.js';
 import type { CountingSession } from '../session/counting-session.js';
+import type { LevelState } from '../session/level-state.js';
 import { levelTable } from '../stats/level-table.js';
 import { RecentEvents } from './recent-events.js';
 import { SumPanel, sumPanelHeight } from './sum-panel.js';
@@ -33,6 +34,11 @@ function useNow(intervalMs: number): number {
     return () => clearInterval(timer);
   }, [intervalMs]);
   return now;
+}
+
+function lastGrainTaxon(state: LevelState): string | null {
+  const last = state.recent.at(-1);
+  return last?.type === 'grain' ? last.taxon : null;
 }
 
 export interface CountScreenProps {
@@ -81,7 +87,7 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
         {` · sitting ${state.sitting} · ${formatDuration(now - Date.parse(state.sittingStartedAt))}`}
       </Text>
       <Box flexDirection="row" height={mainHeight}>
-        <TotalsTable table={table} room={mainHeight - 1} theme={theme} />
+        <TotalsTable table={table} room={mainHeight - 1} theme={theme} justCounted={lastGrainTaxon(state)} />
         <Box flexDirection="column" marginLeft={2} width={sideWidth}>
           <SumPanel table={table} target={state.rules.targetSum} theme={theme} width={sideWidth} />
           <Box marginTop={1}>

@@ -37,15 +37,16 @@ function line(r: TaxonRow): string {
   return `${fit(key, 3)} ${fit(r.taxon, 18)} ${fit(GROUP_SHORT[r.group], 6)} ${right(String(r.count), 5)} ${right(pct(r.percent), 5)}  ${ci(r.ciLow, r.ciHigh)}`;
 }
 
-export function TotalsTable({ table, room, theme }: { table: LevelTable; room: number; theme: Theme }) {
+/** `justCounted`: the taxon of the grain recorded last, marked so a glance confirms the key. */
+export function TotalsTable({ table, room, theme, justCounted }: { table: LevelTable; room: number; theme: Theme; justCounted: string | null }) {
   const { shown, hidden } = visibleRows(table.rows, room);
   return (
     <Box flexDirection="column" width={TABLE_WIDTH}>
       <Text bold>{`${fit('Key', 3)} ${fit('Taxon', 18)} ${fit('Group', 6)} ${right('Count', 5)} ${right('%', 5)}  95% CI`}</Text>
       {shown.map((r) => (
-        <Text key={r.taxon} color={r.count === 0 ? theme.zero : undefined}>
-          {line(r)}
-          {r.inSum ? '' : ' *'}
+        <Text key={r.taxon} color={r.count === 0 ? theme.zero : undefined} bold={r.taxon === justCounted}>
+          {fit(`${line(r)}${r.inSum ? '' : ' *'}`, TABLE_WIDTH - 2)}
+          {r.taxon === justCounted ? '◀' : ''}
         </Text>
       ))}
       {hidden > 0 ? <Text color={theme.zero}>{`… ${hidden} more taxa not shown (a taller terminal shows them)`}</Text> : null}
