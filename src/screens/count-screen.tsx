@@ -14,7 +14,8 @@ import { TABLE_WIDTH, TotalsTable } from './totals-table.js';
 /** The terminal's size, following resizes (Ink re-draws on resize but does not re-render components). */
 function useTerminalSize(): { columns: number; rows: number } {
   const { stdout } = useStdout();
-  const read = () => ({ columns: stdout.columns ?? 80, rows: stdout.rows ?? 24 });
+  // A terminal that reports no size (0 x 0) gets the smallest size the screen is made for.
+  const read = () => ({ columns: stdout.columns || 80, rows: stdout.rows || 24 });
   const [size, setSize] = useState(read);
   useEffect(() => {
     const onResize = () => setSize(read());

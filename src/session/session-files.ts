@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
+import { dirname } from 'node:path';
 import { ExineError } from '../errors.js';
 import type { Keymap } from '../keymap/keymap.js';
 import { repairTail } from '../log/repair-tail.js';
@@ -58,6 +59,7 @@ export function readLevel(path: string): { scan: LogScan; state: LevelState; war
 /** Create a new level file, holding its lock; the first sitting starts. */
 export function createLevel(path: string, level: NewLevel, options: WriterOptions = {}): OpenedLevel {
   if (existsSync(path)) throw new ExineError(`${path} already exists`);
+  if (!existsSync(dirname(path))) throw new ExineError(`cannot create ${path}: the folder ${dirname(path)} does not exist`);
   const lock = SessionLock.acquire(path);
   try {
     const { writer, event } = SessionWriter.create(

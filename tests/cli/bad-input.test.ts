@@ -3,7 +3,8 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { oneLine, runExine } from '../helpers/run-exine.js';
 import { tempDir } from '../helpers/temp-dir.js';
-import { grain, openPayload, sessionText } from '../helpers/levels.js';
+import { TINY_KEYMAP, grain, openPayload, sessionText } from '../helpers/levels.js';
+import * as levelFiles from '../../src/session/session-files.js';
 
 function folderWith(files: Record<string, string>) {
   const dir = tempDir();
@@ -67,6 +68,15 @@ describe('bad input gets one clear line, the right exit code, and changes nothin
       expect(oneLine(run)).toMatch(/line 1 is session format 2, written by a newer exine \(this one reads format 1\); update exine/);
     }
     expect(snapshot(dir)).toEqual(before);
+  });
+
+  it('a level in a folder that does not exist is refused before anything is written', () => {
+    const dir = tempDir();
+    const { createLevel } = levelFiles;
+    expect(() => createLevel(join(dir, 'no', 'l.jsonl'), { info: { level: 'x', depth: null, site: null, core: null, slide: null, analyst: null }, keymap: TINY_KEYMAP, rules: { targetSum: 500 } })).toThrow(
+      /cannot create .*l\.jsonl: the folder .*no does not exist/,
+    );
+    expect(readdirSync(dir)).toEqual([]);
   });
 
   it('count without a terminal says so and creates nothing', () => {

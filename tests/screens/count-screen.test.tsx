@@ -163,6 +163,14 @@ describe('the counting screen', () => {
     await tick();
     expect(s.lastFrame()).not.toMatch(/more taxa not shown/);
     expect(s.lastFrame()).toMatch(/Lycopodium/);
+    // A terminal that reports 0 x 0 (some pseudo-terminals do) is drawn at 80 x 24.
+    size.columns = 0;
+    size.rows = 0;
+    stdout.emit('resize');
+    await tick();
+    const lines = (s.lastFrame() ?? '').split('\n');
+    expect(lines.length).toBeLessThan(24);
+    expect(lines[0]).toMatch(/^Test Mere TM-1 · level T-1/);
     s.session.shutdown();
   });
 
