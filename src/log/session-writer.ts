@@ -94,17 +94,35 @@ export class SessionWriter {
 
   /** Append one event durably and return it as written. Throws AppendError and records nothing on failure. */
   append(payload: EventPayload): SessionEvent {
+    return this.appendAll([payload])[0] as SessionEvent;
+  }
+
+  /**
+   * Append several events with one write and one fsync (a burst of keys): all of
+   * them are on disk when this returns, or, on failure, none is recorded.
+   */
+  appendAll(payloads: readonly EventPayload[]): SessionEvent[] {
     if (this.closed) throw new AppendError('the session is closed', true);
     if (this.readOnlyReason) throw new AppendError(`the session is read-only: ${this.readOnlyReason}`, true);
-    const stamp = { seq: this.seq + 1, at: this.clock().toISOString() };
-    const { line, hash } = encodeLine(payload, stamp, this.lastHash);
-    const bytes = Buffer.from(`${line}\n`, 'utf8');
+    const at = this.clock().toISOString();
+    const events: SessionEvent[] = [];
+    const lines: string[] = [];
+    let hash = this.lastHash;
+    for (const payload of payloads) {
+      const stamp = { seq: this.seq + events.length + 1, at };
+      const encoded = encodeLine(payload, stamp, hash);
+      hash = encoded.hash;
+      lines.push(`${encoded.line}\n`);
+      events.push({ ...payload, ...stamp } as SessionEvent);
+    }
+    const bytes = Buffer.from(lines.length === 1 ? (lines[0] as string) : lines.join(''), 'utf8');
     let written = 0;
     try {
       while (written < bytes.length) written += this.ops.writeSync(this.fd, bytes, written, bytes.length - written);
     } catch (error) {
       this.cutBack();
-      throw new AppendError(`not recorded: writing ${this.path} failed (${describe(error)}); nothing was counted`, this.readOnlyReason !== null);
+      const what = payloads.length === 1 ? 'nothing was counted' : `none of those ${payloads.length} keys was counted`;
+      throw new AppendError(`not recorded: writing ${this.path} failed (${describe(error)}); ${what}`, this.readOnlyReason !== null);
     }
     try {
       this.ops.fsyncSync(this.fd);
@@ -114,9 +132,9 @@ export class SessionWriter {
       throw new AppendError(`not confirmed on disk: ${this.readOnlyReason}; the session is now read-only`, true);
     }
     this.size += bytes.length;
-    this.seq = stamp.seq;
+    this.seq += events.length;
     this.lastHash = hash;
-    return { ...payload, ...stamp } as SessionEvent;
+    return events;
   }
 
   private cutBack(): void {

@@ -2,8 +2,8 @@ import type { KeyPress } from '../input/key-press.js';
 import { resolveKey } from '../keymap/resolve-key.js';
 import { AppendError, type SessionWriter } from '../log/session-writer.js';
 import { decide } from './command-event.js';
-import type { EventPayload } from './events.js';
-import { applyEvent } from './fold.js';
+import type { EventPayload, SessionEvent } from './events.js';
+import { applyEvents } from './fold.js';
 import type { LevelState } from './level-state.js';
 
 export type Tone = 'info' | 'warning' | 'error';
@@ -59,53 +59,80 @@ export class CountingSession {
     for (const listener of this.listeners) listener();
   }
 
-  /** Handle keys in order. Returns 'quit' when one of them asked to leave (the rest are not applied). */
-  pressAll(keys: readonly KeyPress[]): 'quit' | undefined {
-    for (const key of keys) if (this.press(key) === 'quit') return 'quit';
-    return undefined;
-  }
-
   press(key: KeyPress): 'quit' | undefined {
-    if (this.snapshot.confirmingFinish) return this.answerFinish(key);
-    const decision = decide(this.snapshot.state, resolveKey(this.snapshot.state.keymap, key));
-    switch (decision.kind) {
-      case 'record':
-        this.record(decision.payload);
-        return undefined;
-      case 'say':
-        this.publish({ message: { text: decision.message, tone: 'info' } });
-        return undefined;
-      case 'quit':
-        return 'quit';
-      case 'confirm-finish':
-        this.publish({ confirmingFinish: true, message: { text: 'Finish this level? y = finish and quit, any other key = go on counting', tone: 'warning' } });
-        return undefined;
-      case 'nothing':
-        return undefined;
-    }
+    return this.pressAll([key]);
   }
 
-  /** The key after Ctrl-F: "y" finishes the level and quits; any other key only cancels (and counts nothing). */
-  private answerFinish(key: KeyPress): 'quit' | undefined {
-    if (key.kind === 'interrupt') return 'quit';
-    if (key.kind === 'char' && (key.char === 'y' || key.char === 'Y')) {
-      this.publish({ confirmingFinish: false });
-      return this.record({ type: 'finish' }) ? 'quit' : undefined;
+  /**
+   * Handle a burst of keys in order. Each key is decided against the state as it
+   * would be after the keys before it; the burst's events then go to disk with one
+   * write and one fsync, and only then does the state move. So a paste or key
+   * repeat costs one flush, not one per key, and still nothing shows before it is
+   * on disk. Returns 'quit' when a key asked to leave (keys after it are dropped).
+   */
+  pressAll(keys: readonly KeyPress[]): 'quit' | undefined {
+    if (this.snapshot.closed) return undefined;
+    let draft = this.snapshot.state;
+    const pending: EventPayload[] = [];
+    let applied = 0;
+    let message = this.snapshot.message;
+    let confirming = this.snapshot.confirmingFinish;
+    let quit = false;
+    const stage = (payload: EventPayload) => {
+      pending.push(payload);
+      message = null;
+    };
+    // The draft catches up with staged events only when a later key needs it, so a lone key costs one fold.
+    const current = () => {
+      if (applied < pending.length) {
+        const provisional = pending.slice(applied).map((p, i) => ({ ...p, seq: draft.lastSeq + 1 + i, at: draft.lastAt }) as SessionEvent);
+        draft = applyEvents(draft, provisional);
+        applied = pending.length;
+      }
+      return draft;
+    };
+    for (const key of keys) {
+      if (confirming) {
+        // The key after Ctrl-F: y finishes and quits; any other key cancels and counts nothing.
+        confirming = false;
+        if (key.kind === 'char' && (key.char === 'y' || key.char === 'Y')) stage({ type: 'finish' });
+        if (key.kind === 'interrupt' || pending.at(-1)?.type === 'finish') {
+          quit = true;
+          break;
+        }
+        message = { text: 'not finished: counting goes on (that key counted nothing)', tone: 'info' };
+        continue;
+      }
+      const state = current();
+      const decision = decide(state, resolveKey(state.keymap, key));
+      if (decision.kind === 'record') stage(decision.payload);
+      else if (decision.kind === 'say') message = { text: decision.message, tone: 'info' };
+      else if (decision.kind === 'confirm-finish') {
+        confirming = true;
+        message = { text: 'Finish this level? y = finish and quit, any other key = go on counting', tone: 'warning' };
+      } else if (decision.kind === 'quit') {
+        quit = true;
+        break;
+      }
     }
-    this.publish({ confirmingFinish: false, message: { text: 'not finished: counting goes on (that key counted nothing)', tone: 'info' } });
-    return undefined;
+    if (pending.length > 0 && !this.commit(pending)) return undefined;
+    this.publish({ message, confirmingFinish: confirming });
+    return quit ? 'quit' : undefined;
   }
 
-  /** Append one event and, only once it is on disk, move the state. */
-  record(payload: EventPayload): boolean {
-    if (this.snapshot.closed) return false;
+  /** Append events and, only once they are on disk, move the state. On failure nothing moves and the screen says why. */
+  private commit(payloads: readonly EventPayload[]): boolean {
+    // Keys were decided on seq numbers predicted from the state; the writer must agree.
+    if (this.writer.lastSeq !== this.snapshot.state.lastSeq) {
+      throw new Error(`writer at seq ${this.writer.lastSeq} but state at ${this.snapshot.state.lastSeq}`);
+    }
     try {
-      const event = this.writer.append(payload);
-      this.publish({ state: applyEvent(this.snapshot.state, event), message: null });
+      const events = this.writer.appendAll(payloads);
+      this.snapshot = { ...this.snapshot, state: applyEvents(this.snapshot.state, events) };
       return true;
     } catch (error) {
       if (!(error instanceof AppendError)) throw error;
-      this.publish({ message: { text: error.message, tone: 'error' } });
+      this.publish({ message: { text: error.message, tone: 'error' }, confirmingFinish: false });
       return false;
     }
   }

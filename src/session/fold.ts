@@ -84,7 +84,9 @@ function step(d: Draft, event: SessionEvent): void {
         d.ignored.push(event.seq);
         return;
       }
-      d.counts[taxon] = (d.counts[taxon] ?? 0) - 1;
+      // A fully undone taxon reads as never counted.
+      if (d.counts[taxon] === 1) delete d.counts[taxon];
+      else d.counts[taxon] = (d.counts[taxon] ?? 0) - 1;
       d.grains--;
       d.stack = stack;
       d.undos++;
@@ -117,17 +119,18 @@ function step(d: Draft, event: SessionEvent): void {
   }
 }
 
-/** Counts of zero are dropped, so a fully undone taxon reads as never counted. */
-function finish(d: Draft): LevelState {
-  for (const taxon of Object.keys(d.counts)) if (d.counts[taxon] === 0) delete d.counts[taxon];
-  return d;
-}
-
 /** The state after one more event. Pure: `state` is not changed. */
 export function applyEvent(state: LevelState, event: SessionEvent): LevelState {
   const d = draftOf(state);
   step(d, event);
-  return finish(d);
+  return d;
+}
+
+/** The state after several more events, with one copy of the state for all of them. */
+export function applyEvents(state: LevelState, events: readonly SessionEvent[]): LevelState {
+  const d = draftOf(state);
+  for (const event of events) step(d, event);
+  return d;
 }
 
 /** A fold fed one event at a time, for events streamed from a file. */
@@ -143,7 +146,7 @@ export function startFold(open: OpenEvent, keymap: Keymap): Folding {
     add: (event) => {
       if (event.seq !== open.seq) step(d, event);
     },
-    state: () => finish(draftOf(d)),
+    state: () => draftOf(d),
   };
 }
 
