@@ -1,17 +1,14 @@
 import type { KeyPress } from '../input/key-press.js';
-import { resolveKey } from '../keymap/resolve-key.js';
 import { AppendError, type SessionWriter } from '../log/session-writer.js';
-import { decide } from './command-event.js';
-import type { EventPayload, SessionEvent } from './events.js';
+import type { EventPayload } from './events.js';
 import { applyEvents } from './fold.js';
 import type { LevelState } from './level-state.js';
-
-export type Tone = 'info' | 'warning' | 'error';
+import { planBurst, type Message } from './plan-burst.js';
 
 export interface Snapshot {
   readonly state: LevelState;
   /** The latest message for the analyst, if any; cleared by the next recorded event. */
-  readonly message: { readonly text: string; readonly tone: Tone } | null;
+  readonly message: Message | null;
   /** What opening the file found (a repair, an unclean exit): shown for the whole sitting. */
   readonly notice: string | null;
   readonly readOnly: string | null;
@@ -64,60 +61,17 @@ export class CountingSession {
   }
 
   /**
-   * Handle a burst of keys in order. Each key is decided against the state as it
-   * would be after the keys before it; the burst's events then go to disk with one
-   * write and one fsync, and only then does the state move. So a paste or key
-   * repeat costs one flush, not one per key, and still nothing shows before it is
-   * on disk. Returns 'quit' when a key asked to leave (keys after it are dropped).
+   * Handle a burst of keys (see planBurst): its events go to disk with one write
+   * and one fsync, and only then does the state move. So a paste or key repeat
+   * costs one flush, not one per key, and still nothing shows before it is on
+   * disk. Returns 'quit' when a key asked to leave (keys after it are dropped).
    */
   pressAll(keys: readonly KeyPress[]): 'quit' | undefined {
     if (this.snapshot.closed) return undefined;
-    let draft = this.snapshot.state;
-    const pending: EventPayload[] = [];
-    let applied = 0;
-    let message = this.snapshot.message;
-    let confirming = this.snapshot.confirmingFinish;
-    let quit = false;
-    const stage = (payload: EventPayload) => {
-      pending.push(payload);
-      message = null;
-    };
-    // The draft catches up with staged events only when a later key needs it, so a lone key costs one fold.
-    const current = () => {
-      if (applied < pending.length) {
-        const provisional = pending.slice(applied).map((p, i) => ({ ...p, seq: draft.lastSeq + 1 + i, at: draft.lastAt }) as SessionEvent);
-        draft = applyEvents(draft, provisional);
-        applied = pending.length;
-      }
-      return draft;
-    };
-    for (const key of keys) {
-      if (confirming) {
-        // The key after Ctrl-F: y finishes and quits; any other key cancels and counts nothing.
-        confirming = false;
-        if (key.kind === 'char' && (key.char === 'y' || key.char === 'Y')) stage({ type: 'finish' });
-        if (key.kind === 'interrupt' || pending.at(-1)?.type === 'finish') {
-          quit = true;
-          break;
-        }
-        message = { text: 'not finished: counting goes on (that key counted nothing)', tone: 'info' };
-        continue;
-      }
-      const state = current();
-      const decision = decide(state, resolveKey(state.keymap, key));
-      if (decision.kind === 'record') stage(decision.payload);
-      else if (decision.kind === 'say') message = { text: decision.message, tone: 'info' };
-      else if (decision.kind === 'confirm-finish') {
-        confirming = true;
-        message = { text: 'Finish this level? y = finish and quit, any other key = go on counting', tone: 'warning' };
-      } else if (decision.kind === 'quit') {
-        quit = true;
-        break;
-      }
-    }
-    if (pending.length > 0 && !this.commit(pending)) return undefined;
-    this.publish({ message, confirmingFinish: confirming });
-    return quit ? 'quit' : undefined;
+    const plan = planBurst(this.snapshot.state, this.snapshot.confirmingFinish, keys);
+    if (plan.payloads.length > 0 && !this.commit(plan.payloads)) return undefined;
+    this.publish({ confirmingFinish: plan.confirmingFinish, ...(plan.message === undefined ? {} : { message: plan.message }) });
+    return plan.quit ? 'quit' : undefined;
   }
 
   /** Append events and, only once they are on disk, move the state. On failure nothing moves and the screen says why. */
