@@ -9,7 +9,7 @@ import { levelTable } from '../stats/level-table.js';
 import { RecentEvents } from './recent-events.js';
 import { SumPanel, sumPanelHeight } from './sum-panel.js';
 import { themeFor } from './theme.js';
-import { TABLE_WIDTH, TotalsTable } from './totals-table.js';
+import { TotalsTable, tableWidth, taxonWidthFor } from './totals-table.js';
 
 /** The terminal's size, following resizes (Ink re-draws on resize but does not re-render components). */
 function useTerminalSize(): { columns: number; rows: number } {
@@ -70,7 +70,8 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
   const height = Math.max(12, (rows ?? terminal.rows) - 1);
   // Two header lines, two status lines (an opening notice can be long), one key line.
   const mainHeight = height - 5;
-  const sideWidth = Math.max(20, width - TABLE_WIDTH - 2);
+  const taxonWidth = taxonWidthFor(width);
+  const sideWidth = Math.max(20, width - tableWidth(taxonWidth) - 2);
   // Recent events get what the sum panel leaves: one line for its margin, one for its title.
   const sideRoomForRecent = Math.max(1, mainHeight - sumPanelHeight(table, state.rules.targetSum) - 2);
   const h = state.header;
@@ -88,7 +89,7 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
         {` · sitting ${state.sitting} · ${formatDuration(now - Date.parse(state.sittingStartedAt))}`}
       </Text>
       <Box flexDirection="row" height={mainHeight}>
-        <TotalsTable table={table} room={mainHeight - 1} theme={theme} justCounted={lastGrainTaxon(state)} />
+        <TotalsTable table={table} room={mainHeight - 1} theme={theme} justCounted={lastGrainTaxon(state)} taxonWidth={taxonWidth} />
         <Box flexDirection="column" marginLeft={2} width={sideWidth}>
           <SumPanel table={table} target={state.rules.targetSum} theme={theme} width={sideWidth} />
           <Box marginTop={1}>

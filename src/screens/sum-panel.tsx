@@ -17,7 +17,7 @@ export function sumPanelHeight(table: LevelTable, target: number): number {
 
 export function SumPanel({ table, target, theme, width }: { table: LevelTable; target: number; theme: Theme; width: number }) {
   const reached = table.pollenSum >= target;
-  const barWidth = Math.max(6, width - 7);
+  const barWidth = Math.max(6, Math.min(30, width - 7));
   return (
     <Box flexDirection="column" width={width}>
       <Text bold>

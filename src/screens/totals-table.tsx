@@ -16,7 +16,15 @@ const GROUP_SHORT: Readonly<Record<Group, string>> = {
   other: 'other',
 };
 
-export const TABLE_WIDTH = 56;
+/** The table's width for a taxon column of `taxonWidth` characters (18 fits 80 columns). */
+export function tableWidth(taxonWidth: number): number {
+  return taxonWidth + 38;
+}
+
+/** Wider terminals give long names (e.g. "Plantago lanceolata") room before the side panels. */
+export function taxonWidthFor(columns: number): number {
+  return columns >= 110 ? 30 : 18;
+}
 
 /** Which rows fit: keep the keymap's order; drop uncounted rows from the end first. */
 export function visibleRows(rows: readonly TaxonRow[], room: number): { shown: TaxonRow[]; hidden: number } {
@@ -32,20 +40,29 @@ export function visibleRows(rows: readonly TaxonRow[], room: number): { shown: T
   return { shown, hidden: rows.length - shown.length };
 }
 
-function line(r: TaxonRow): string {
+function line(r: TaxonRow, taxonWidth: number): string {
   const key = r.key === null ? '' : keyLabel(r.key);
-  return `${fit(key, 3)} ${fit(r.taxon, 18)} ${fit(GROUP_SHORT[r.group], 6)} ${right(String(r.count), 5)} ${right(pct(r.percent), 5)}  ${ci(r.ciLow, r.ciHigh)}`;
+  return `${fit(key, 3)} ${fit(r.taxon, taxonWidth)} ${fit(GROUP_SHORT[r.group], 6)} ${right(String(r.count), 5)} ${right(pct(r.percent), 5)}  ${ci(r.ciLow, r.ciHigh)}`;
 }
 
-/** `justCounted`: the taxon of the grain recorded last, marked so a glance confirms the key. */
-export function TotalsTable({ table, room, theme, justCounted }: { table: LevelTable; room: number; theme: Theme; justCounted: string | null }) {
+export interface TotalsTableProps {
+  readonly table: LevelTable;
+  readonly room: number;
+  readonly theme: Theme;
+  /** The taxon of the grain recorded last, marked so a glance confirms the key. */
+  readonly justCounted: string | null;
+  readonly taxonWidth: number;
+}
+
+export function TotalsTable({ table, room, theme, justCounted, taxonWidth }: TotalsTableProps) {
   const { shown, hidden } = visibleRows(table.rows, room);
+  const width = tableWidth(taxonWidth);
   return (
-    <Box flexDirection="column" width={TABLE_WIDTH}>
-      <Text bold>{`${fit('Key', 3)} ${fit('Taxon', 18)} ${fit('Group', 6)} ${right('Count', 5)} ${right('%', 5)}  95% CI`}</Text>
+    <Box flexDirection="column" width={width}>
+      <Text bold>{`${fit('Key', 3)} ${fit('Taxon', taxonWidth)} ${fit('Group', 6)} ${right('Count', 5)} ${right('%', 5)}  95% CI`}</Text>
       {shown.map((r) => (
         <Text key={r.taxon} color={r.count === 0 ? theme.zero : undefined} bold={r.taxon === justCounted}>
-          {fit(`${line(r)}${r.inSum ? '' : ' *'}`, TABLE_WIDTH - 2)}
+          {fit(`${line(r, taxonWidth)}${r.inSum ? '' : ' *'}`, width - 2)}
           {r.taxon === justCounted ? '◀' : ''}
         </Text>
       ))}

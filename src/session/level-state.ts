@@ -39,4 +39,4 @@ export interface LevelState {
   readonly ignored: readonly number[];
 }
 
-export const RECENT_EVENTS = 12;
+export const RECENT_EVENTS = 20;

@@ -5,7 +5,7 @@ import { applyEvent, foldEvents } from '../../src/session/fold.js';
 import { decide } from '../../src/session/command-event.js';
 import { resolveKey } from '../../src/keymap/resolve-key.js';
 import { splitKeys } from '../../src/input/key-press.js';
-import type { LevelState } from '../../src/session/level-state.js';
+import { RECENT_EVENTS, type LevelState } from '../../src/session/level-state.js';
 import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
 
 const at = (i: number) => new Date(Date.UTC(2026, 10, 2, 9, 0, i)).toISOString();
@@ -61,7 +61,7 @@ describe('the fold of a level', () => {
 
   it('keeps a window of recent events', () => {
     const s = given(Array.from({ length: 30 }, () => grain('Alnus')));
-    expect(s.recent.length).toBe(12);
+    expect(s.recent.length).toBe(RECENT_EVENTS);
     expect(s.recent.at(-1)?.seq).toBe(31);
   });
 
