@@ -38,7 +38,8 @@ function isActionKey(key: string): boolean {
 /** Parse and check a keymap file's text. `source` names the file in every message. */
 export function parseKeymap(text: string, source: string): KeymapResult {
   const fail = (message: string): KeymapResult => ({ ok: false, message: `keymap ${source}: ${message}` });
-  const json = parseStrictJson(text);
+  // Editors on Windows often save a byte-order mark; it is not part of the JSON.
+  const json = parseStrictJson(text.startsWith('\uFEFF') ? text.slice(1) : text);
   if (!json.ok) return fail(json.message);
   const dup = json.duplicates[0];
   if (dup) {

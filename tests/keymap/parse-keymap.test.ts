@@ -71,6 +71,10 @@ describe('keymap files', () => {
     expect(err('{"name":"x","keys":{"q":{"taxon":"Q","group":"trees"}},"sum":["trees","herb"]}')).toMatch(/"sum" lists unknown group "herb"/);
   });
 
+  it('reads a file saved with a byte-order mark and CRLF line ends', () => {
+    expect(ok('\uFEFF{\r\n"name":"x",\r\n"keys":{"q":{"taxon":"Quercus","group":"trees"}}\r\n}\r\n').keys.q?.taxon).toBe('Quercus');
+  });
+
   it('takes the pollen sum groups from "sum"', () => {
     expect(ok('{"name":"x","keys":{"q":{"taxon":"Q","group":"trees"}},"sum":["trees"]}').sum).toEqual(['trees']);
   });
