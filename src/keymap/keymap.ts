@@ -46,10 +46,3 @@ export function keyLabel(key: KeyName): string {
       return key;
   }
 }
-
-export function bindingForTaxon(keymap: Keymap, taxon: string): { key: string; binding: TaxonBinding } | undefined {
-  for (const [key, binding] of Object.entries(keymap.keys)) {
-    if (binding.taxon === taxon) return { key, binding };
-  }
-  return undefined;
-}

@@ -35,8 +35,6 @@ export interface LogScan {
   readonly events: readonly ParsedEvent[];
   /** Number of valid lines. */
   readonly lines: number;
-  /** The open event of line 1, when it is valid. */
-  readonly open: ParsedEvent | null;
   /** Length in bytes of the valid prefix. */
   readonly goodBytes: number;
   readonly totalBytes: number;
@@ -55,6 +53,9 @@ type LineCheck = { ok: true; event: ParsedEvent; hash: string; keymap?: Keymap }
 function checkLine(line: string, lineNo: number, prevHash: string): LineCheck {
   const bad = (problem: Problem, message: string): LineCheck => ({ ok: false, problem, message: `line ${lineNo} ${message}` });
   const hashes = lineHashes(line);
+  if (!hashes && lineNo === 1 && !line.includes('"hash"')) {
+    return bad('no-hash', 'is not an exine session line: this is not a session file, or its first line was replaced');
+  }
   if (!hashes) return bad('no-hash', 'has no valid integrity field ("hash" at the end): it was edited or damaged');
   if (hashes.claimed !== hashes.actual) return bad('hash-mismatch', 'does not match its hash: its content was changed after it was written');
   let value: unknown;
@@ -106,7 +107,6 @@ function allNul(text: string, from: number): boolean {
  */
 export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keymap) => void): LogScan {
   const events: ParsedEvent[] = [];
-  let open: ParsedEvent | null = null;
   let keymap: Keymap | null = null;
   let lastHash = '';
   // Work on the decoded text (one decode, as a plain reader would); count bytes beside it
@@ -120,7 +120,6 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
   const result = (tail: Damage | null, corruption: Damage | null): LogScan => ({
     events,
     lines: valid,
-    open,
     goodBytes: bytePos,
     totalBytes: buf.length,
     lastHash,
@@ -149,10 +148,7 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
       const repairable = lineNo > 1 && allNul(text, nl + 1) && PHYSICAL.has(check.problem);
       return repairable ? result(damage, null) : result(null, damage);
     }
-    if (check.keymap) {
-      keymap = check.keymap;
-      open = check.event;
-    }
+    if (check.keymap) keymap = check.keymap;
     valid++;
     if (onEvent) onEvent(check.event, keymap as Keymap);
     else events.push(check.event);
