@@ -59,6 +59,13 @@ describe('bad input gets one clear line, the right exit code, and changes nothin
     expect(oneLine(runExine(['keys', 'nowhere.json'], dir))).toMatch(/keymap nowhere\.json: no such file/);
   });
 
+  it('a file that is not a session file is called that', () => {
+    const dir = folderWith({ 'notes.txt': 'counted 300 grains today\n' });
+    const run = runExine(['summary', 'notes.txt'], dir);
+    expect(run.code).toBe(1);
+    expect(oneLine(run)).toMatch(/notes\.txt: line 1 is not an exine session line: this is not a session file/);
+  });
+
   it('a session file from a future format version is refused by every command, untouched', () => {
     const dir = folderWith({ 'future.jsonl': sessionText([{ ...openPayload(), format: 2 }, grain('Alnus')]) });
     const before = snapshot(dir);
