@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ExineError } from '../errors.js';
@@ -22,6 +22,13 @@ export function resolveKeymapPath(nameOrPath: string): string {
   return resolve(nameOrPath);
 }
 
+export function bundledNames(): string[] {
+  return readdirSync(BUNDLED_KEYMAP_DIR)
+    .filter((f) => f.endsWith('.json'))
+    .map((f) => basename(f, '.json'))
+    .sort();
+}
+
 export function isBundledKeymap(path: string): boolean {
   return dirname(resolve(path)) === BUNDLED_KEYMAP_DIR;
 }
@@ -34,9 +41,7 @@ export function loadKeymap(nameOrPath: string): { keymap: Keymap; path: string }
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
     if (code === 'ENOENT') {
-      throw new ExineError(
-        `keymap ${nameOrPath}: no such file (bundled keymaps: see ${BUNDLED_KEYMAP_DIR})`,
-      );
+      throw new ExineError(`keymap ${nameOrPath}: no such file (bundled keymaps: ${bundledNames().join(', ')})`);
     }
     throw new ExineError(`keymap ${nameOrPath}: cannot be read (${code ?? String(error)})`);
   }

@@ -56,7 +56,7 @@ describe('bad input gets one clear line, the right exit code, and changes nothin
       expect(run.code).toBe(1);
       expect(oneLine(run)).toMatch(/nowhere\.jsonl: no such session file/);
     }
-    expect(oneLine(runExine(['keys', 'nowhere.json'], dir))).toMatch(/keymap nowhere\.json: no such file/);
+    expect(oneLine(runExine(['keys', 'nowhere.json'], dir))).toMatch(/keymap nowhere\.json: no such file \(bundled keymaps: keypad, temperate-lowland\)/);
   });
 
   it('a file that is not a session file is called that', () => {
