@@ -1,4 +1,4 @@
-import { readdirSync, readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ExineError } from '../errors.js';
@@ -10,16 +10,8 @@ export const DEFAULT_KEYMAP = 'temperate-lowland';
 
 /** A path, or the name of a bundled keymap ("keypad" finds keymaps/keypad.json). */
 export function resolveKeymapPath(nameOrPath: string): string {
-  if (/^[a-z0-9-]+$/.test(nameOrPath)) {
-    const bundled = join(BUNDLED_KEYMAP_DIR, `${nameOrPath}.json`);
-    try {
-      readFileSync(bundled);
-      return bundled;
-    } catch {
-      // not a bundled name: treat it as a path below
-    }
-  }
-  return resolve(nameOrPath);
+  const bundled = join(BUNDLED_KEYMAP_DIR, `${nameOrPath}.json`);
+  return /^[a-z0-9-]+$/.test(nameOrPath) && existsSync(bundled) ? bundled : resolve(nameOrPath);
 }
 
 export function bundledNames(): string[] {
