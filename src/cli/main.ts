@@ -1,5 +1,5 @@
 import { EXIT, ExineError, UsageError } from '../errors.js';
-import { MAIN_HELP } from './help.js';
+import { HELP, MAIN_HELP } from './help.js';
 
 type Command = (args: string[]) => number | Promise<number>;
 
@@ -20,6 +20,11 @@ export async function main(argv: string[]): Promise<number> {
     return name === undefined ? EXIT.usage : EXIT.ok;
   }
   const load = COMMANDS[name];
+  const help = HELP[name];
+  if (load && help && (rest.includes('--help') || rest.includes('-h'))) {
+    process.stdout.write(`${help}\n`);
+    return EXIT.ok;
+  }
   try {
     if (!load) throw new UsageError(`exine: unknown command "${name}" (commands: ${Object.keys(COMMANDS).join(', ')}; see exine --help)`);
     return await (await load())(rest);

@@ -3,10 +3,10 @@ import { UsageError } from '../errors.js';
 
 type Options = NonNullable<ParseArgsConfig['options']>;
 
-/** node:util parseArgs in strict mode, with its errors turned into one-line usage errors. */
+/** node:util parseArgs in strict mode, with its errors turned into one-line usage errors. --help is handled in main.ts. */
 export function parseFlags<O extends Options>(command: string, args: string[], options: O) {
   try {
-    return parseArgs({ args, options: { ...options, help: { type: 'boolean', short: 'h' } }, allowPositionals: true, strict: true });
+    return parseArgs({ args, options, allowPositionals: true, strict: true });
   } catch (error) {
     const message = (error as Error).message.replace(/\. To specify a positional argument.*$/s, '').replace(/^Unknown option/, 'unknown option');
     throw new UsageError(`exine ${command}: ${message.charAt(0).toLowerCase()}${message.slice(1)} (see exine ${command} --help)`);

@@ -6,7 +6,6 @@ import type { Keymap } from '../../keymap/keymap.js';
 import { DEFAULT_RULES, type RuleSet } from '../../rules/rule-set.js';
 import type { LevelInfo } from '../../session/events.js';
 import { createLevel, readLevel, resumeLevel, type OpenedLevel } from '../../session/session-files.js';
-import { HELP } from '../help.js';
 import { finiteNumber, parseFlags, positiveInteger } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -82,10 +81,6 @@ export function openForCounting(path: string, flags: Record<string, string | und
 
 export async function countCommand(args: string[]): Promise<number> {
   const { values, positionals } = parseFlags('count', args, OPTIONS);
-  if (values.help) {
-    process.stdout.write(`${HELP.count}\n`);
-    return 0;
-  }
   if (positionals.length !== 1) throw new UsageError('exine count: give one session FILE (see exine count --help)');
   const path = resolve(positionals[0] as string);
   const opened = openForCounting(path, values as Record<string, string | undefined>, () => requireTerminal('count'));

@@ -3,7 +3,6 @@ import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { UsageError } from '../../errors.js';
-import { HELP } from '../help.js';
 import { parseFlags } from '../parse-flags.js';
 import { openForCounting, requireTerminal } from './count.js';
 
@@ -11,11 +10,7 @@ export const DEMO_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../
 export const DEMO_LEVEL = 'km1-084cm.jsonl';
 
 export async function demoCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseFlags('demo', args, {});
-  if (values.help) {
-    process.stdout.write(`${HELP.demo}\n`);
-    return 0;
-  }
+  const { positionals } = parseFlags('demo', args, {});
   if (positionals.length) throw new UsageError('exine demo: takes no arguments (see exine demo --help)');
   requireTerminal('demo');
   const dir = mkdtempSync(join(tmpdir(), 'exine-demo-'));

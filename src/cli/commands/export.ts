@@ -5,7 +5,6 @@ import { toCsv } from '../../export/csv-text.js';
 import { LONG_COLUMNS, longRows, orderLevels, wideTable, type ExportLevel } from '../../export/level-export.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { readLevel } from '../../session/session-files.js';
-import { HELP } from '../help.js';
 import { parseFlags } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -16,10 +15,6 @@ const OPTIONS = {
 
 export function exportCommand(args: string[]): number {
   const { values, positionals } = parseFlags('export', args, OPTIONS);
-  if (values.help) {
-    process.stdout.write(`${HELP.export}\n`);
-    return 0;
-  }
   if (positionals.length === 0) throw new UsageError('exine export: give at least one session FILE (see exine export --help)');
   if (values.format !== 'long' && values.format !== 'wide') {
     throw new UsageError(`exine export: --format must be long or wide, not "${values.format}"`);

@@ -3,15 +3,10 @@ import { UsageError } from '../../errors.js';
 import { readLevel } from '../../session/session-files.js';
 import { levelTable } from '../../stats/level-table.js';
 import { ci, fit, pct, right } from '../../text/cells.js';
-import { HELP } from '../help.js';
 import { parseFlags } from '../parse-flags.js';
 
 export function summaryCommand(args: string[]): number {
   const { values, positionals } = parseFlags('summary', args, { json: { type: 'boolean', default: false } });
-  if (values.help) {
-    process.stdout.write(`${HELP.summary}\n`);
-    return 0;
-  }
   if (positionals.length !== 1) throw new UsageError('exine summary: give one session FILE (see exine summary --help)');
   const { state, warnings } = readLevel(resolve(positionals[0] as string));
   for (const w of warnings) process.stderr.write(`exine: ${w}\n`);

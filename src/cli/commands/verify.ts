@@ -2,15 +2,10 @@ import { readFileSync } from 'node:fs';
 import { ExineError, UsageError } from '../../errors.js';
 import { scanLog } from '../../log/scan-log.js';
 import { verdictOf } from '../../log/verify-log.js';
-import { HELP } from '../help.js';
 import { parseFlags } from '../parse-flags.js';
 
 export function verifyCommand(args: string[]): number {
-  const { values, positionals } = parseFlags('verify', args, {});
-  if (values.help) {
-    process.stdout.write(`${HELP.verify}\n`);
-    return 0;
-  }
+  const { positionals } = parseFlags('verify', args, {});
   if (positionals.length !== 1) throw new UsageError('exine verify: give one session FILE (see exine verify --help)');
   const file = positionals[0] as string;
   let bytes: Buffer;
