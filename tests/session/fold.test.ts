@@ -95,3 +95,24 @@ describe('the fold of a level', () => {
     );
   });
 });
+
+describe('the fold, replayed or applied one event at a time', () => {
+  it('property: folding all events at once equals applying them one by one (fast-check)', () => {
+    const payload = fc.oneof(
+      fc.constantFrom('Alnus', 'Betula', 'Sphagnum').map((t) => grain(t)),
+      fc.integer({ min: 2, max: 60 }).map((of): EventPayload => ({ type: 'undo', of })),
+      fc.integer({ min: 1, max: 9 }).map((traverse): EventPayload => ({ type: 'traverse', traverse })),
+      fc.constant<EventPayload>({ type: 'close' }),
+      fc.constant<EventPayload>({ type: 'finish' }),
+    );
+    fc.assert(
+      fc.property(fc.array(payload, { maxLength: 60 }), (ps) => {
+        const events = ps.map((p, i) => ({ ...p, seq: i + 2, at: at(i + 1) }) as SessionEvent);
+        let stepwise = foldEvents(open, TINY_KEYMAP, []);
+        for (const e of events) stepwise = applyEvent(stepwise, e);
+        expect(foldEvents(open, TINY_KEYMAP, events)).toEqual(stepwise);
+      }),
+      { numRuns: 300 },
+    );
+  });
+});
