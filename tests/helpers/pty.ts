@@ -20,7 +20,9 @@ export interface Pty {
 /** Run exine in a real pseudo-terminal of 80x24, via util-linux `script`. */
 export function startInPty(args: string[], cwd: string, columns = 80, rows = 24): Pty {
   const command = `stty cols ${columns} rows ${rows}; exec ${JSON.stringify(process.execPath)} ${JSON.stringify(EXINE_BIN)} ${args.map((a) => JSON.stringify(a)).join(' ')}`;
-  const proc = spawn('script', ['-qfec', command, '/dev/null'], { cwd, stdio: 'pipe', env: { ...process.env, TERM: 'xterm-256color' } });
+  // CI=true as on CI machines and some lab images: the screen must draw live all the same.
+  const env = { ...process.env, TERM: 'xterm-256color', CI: 'true' };
+  const proc = spawn('script', ['-qfec', command, '/dev/null'], { cwd, stdio: 'pipe', env });
   let out = '';
   const waiters = new Set<() => void>();
   const onData = (d: Buffer) => {

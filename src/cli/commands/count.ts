@@ -6,6 +6,7 @@ import type { Keymap } from '../../keymap/keymap.js';
 import { DEFAULT_RULES, type RuleSet } from '../../rules/rule-set.js';
 import type { LevelInfo } from '../../session/events.js';
 import { createLevel, readLevel, resumeLevel, type OpenedLevel } from '../../session/session-files.js';
+import { drawLiveOnThisTerminal } from '../interactive-terminal.js';
 import { finiteNumber, parseFlags, positiveInteger } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -84,6 +85,7 @@ export async function countCommand(args: string[]): Promise<number> {
   if (positionals.length !== 1) throw new UsageError('exine count: give one session FILE (see exine count --help)');
   const path = resolve(positionals[0] as string);
   const opened = openForCounting(path, values as Record<string, string | undefined>, () => requireTerminal('count'));
+  drawLiveOnThisTerminal();
   const { runCountScreen } = await import('../../screens/run-count-screen.js');
   return runCountScreen(opened);
 }

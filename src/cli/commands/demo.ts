@@ -4,6 +4,7 @@ import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { UsageError } from '../../errors.js';
 import { parseFlags } from '../parse-flags.js';
+import { drawLiveOnThisTerminal } from '../interactive-terminal.js';
 import { openForCounting, requireTerminal } from './count.js';
 
 export const DEMO_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../../demo-sessions');
@@ -17,6 +18,7 @@ export async function demoCommand(args: string[]): Promise<number> {
   const copy = join(dir, DEMO_LEVEL);
   copyFileSync(join(DEMO_DIR, DEMO_LEVEL), copy);
   const opened = openForCounting(copy, {});
+  drawLiveOnThisTerminal();
   const { runCountScreen } = await import('../../screens/run-count-screen.js');
   const code = await runCountScreen(opened);
   process.stdout.write(`the demo copy stays in ${copy} (the bundled demo is unchanged)\n`);
