@@ -15,6 +15,8 @@ export interface Child {
 
 export function startChild(args: string[], env: NodeJS.ProcessEnv = {}): Child {
   const proc = spawn(process.execPath, args, { env: { ...process.env, ...env }, stdio: 'pipe' });
+  // Keys may still be on their way when a test kills the process: a closed pipe is expected then.
+  proc.stdin.on('error', () => {});
   let out = '';
   let err = '';
   const waiters: (() => void)[] = [];

@@ -67,8 +67,8 @@ describe('a crash loses no acknowledged grain (real process, SIGKILL)', () => {
     const typing = setInterval(() => child.proc.stdin.write('abcoabcoab'), 2);
     await child.waitFor(/(ack \d+\n){100}/);
     child.proc.kill('SIGKILL');
-    await child.exited();
     clearInterval(typing);
+    await child.exited();
     const acks = [...child.stdout().matchAll(/ack (\d+)/g)].map((m) => Number(m[1]));
     const lastAck = Math.max(...acks);
     const scan = scanLog(readFileSync(path));
