@@ -117,7 +117,7 @@ export class SessionLock {
         continue;
       }
       staleAside = aside;
-      tookOverFrom = moved === 'unreadable' || moved === 'gone' ? 'an unfinished lock file' : `process ${moved.pid}, no longer running`;
+      tookOverFrom = moved === 'unreadable' || moved === 'gone' ? 'left empty by a writer that stopped while starting' : `left by process ${moved.pid}, no longer running`;
     }
     throw new ExineError(`cannot lock ${sessionPath}: the lock file keeps changing; is another exine starting on it?`);
   }

@@ -96,7 +96,7 @@ export function resumeLevel(path: string, options: WriterOptions & { rules?: Rul
   const lock = SessionLock.acquire(path);
   try {
     const notices: string[] = [];
-    if (lock.tookOverFrom) notices.push(`took over a stale lock left by ${lock.tookOverFrom}`);
+    if (lock.tookOverFrom) notices.push(`took over a stale lock (${lock.tookOverFrom})`);
     const bytes = readBytes(path);
     const { scan, state: folded } = scanAndFold(bytes);
     if (scan.corruption || !folded) {

@@ -1,7 +1,7 @@
-import { readFileSync, writeFileSync, existsSync } from 'node:fs';
+import { existsSync, readFileSync, utimesSync, writeFileSync } from 'node:fs';
 import { hostname } from 'node:os';
 import { describe, expect, it } from 'vitest';
-import { lockPathOf } from '../../src/log/session-lock.js';
+import { EMPTY_LOCK_GRACE_MS, lockPathOf } from '../../src/log/session-lock.js';
 import { processStartToken } from '../../src/io/process-info.js';
 import { scanLog } from '../../src/log/scan-log.js';
 import { resumeLevel } from '../../src/session/session-files.js';
@@ -41,7 +41,7 @@ describe('one writer per session file (real processes)', () => {
     expect(existsSync(lockPathOf(path))).toBe(true);
     const opened = resumeLevel(path);
     opened.writer.close();
-    expect(opened.notices.join()).toMatch(new RegExp(`took over a stale lock left by process ${holder.proc.pid}, no longer running`));
+    expect(opened.notices.join()).toMatch(new RegExp(`took over a stale lock \\(left by process ${holder.proc.pid}, no longer running\\)`));
   });
 
   it('a lock whose pid was reused by another process (other start time) is stale; a live holder or another host is not', () => {
@@ -55,6 +55,19 @@ describe('one writer per session file (real processes)', () => {
     expect(() => resumeLevel(path)).toThrow(/is already open in exine process/);
     writeFileSync(lockPathOf(path), lockInfo(1, null, 'another-host.example'));
     expect(() => resumeLevel(path)).toThrow(/on another-host\.example/);
+  });
+});
+
+describe('a lock file without content (a writer stopped between creating and filling it)', () => {
+  it('is respected while fresh, and taken over once older than the grace period', () => {
+    const path = closedLevel();
+    writeFileSync(lockPathOf(path), '');
+    expect(() => resumeLevel(path)).toThrow(/already open in another exine that is starting up/);
+    const old = new Date(Date.now() - EMPTY_LOCK_GRACE_MS - 1000);
+    utimesSync(lockPathOf(path), old, old);
+    const opened = resumeLevel(path);
+    opened.writer.close();
+    expect(opened.notices.join()).toMatch(/took over a stale lock \(left empty by a writer that stopped while starting\)/);
   });
 });
 
