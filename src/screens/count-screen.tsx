@@ -68,8 +68,13 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
 
   const width = columns ?? terminal.columns;
   const height = Math.max(12, (rows ?? terminal.rows) - 1);
-  // Two header lines, two status lines (an opening notice can be long), one key line.
-  const mainHeight = height - 5;
+  const status = snapshot.readOnly
+    ? `READ-ONLY: ${snapshot.readOnly}`
+    : (snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '));
+  // The status takes the lines it needs (up to 3; word wrap wastes some of each line).
+  const statusLines = Math.min(3, Math.max(1, Math.ceil([...status].length / Math.max(20, width - 12))));
+  // Two header lines, the status, one key line.
+  const mainHeight = height - 3 - statusLines;
   const taxonWidth = taxonWidthFor(width);
   const sideWidth = Math.max(20, width - tableWidth(taxonWidth) - 2);
   // Recent events get what the sum panel leaves: one line for its margin, one for its title.
@@ -97,9 +102,9 @@ export function CountScreen({ session, columns, rows }: CountScreenProps) {
           </Box>
         </Box>
       </Box>
-      <Box height={2} overflow="hidden">
+      <Box height={statusLines} overflow="hidden">
         <Text color={snapshot.message?.tone === 'error' || snapshot.readOnly ? theme.error : theme.warning} wrap="wrap">
-          {snapshot.readOnly ? `READ-ONLY: ${snapshot.readOnly}` : (snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '))}
+          {status}
         </Text>
       </Box>
       <Text dimColor={theme.dim} wrap="truncate-end">
