@@ -146,6 +146,7 @@ describe('the counting screen', () => {
     await s.type('aa');
     expect(s.lastFrame()).toMatch(/On opening: line 7 is incomplete[\s\S]*21\s+bytes cut off and\s+kept in\s+level\.jsonl\.cut-[\s\S]*\.bak/);
     expect(s.session.getSnapshot().state.counts).toEqual({ Alnus: 4, Betula: 1 });
+    expect((s.lastFrame() ?? '').split('\n').length).toBeLessThan(24);
     s.session.shutdown();
   });
 
