@@ -59,7 +59,6 @@ export class SessionLock {
   static acquire(sessionPath: string): SessionLock {
     const path = lockPathOf(sessionPath);
     let tookOverFrom: string | null = null;
-    let staleAside: string | null = null;
     for (let attempt = 0; attempt < 5; attempt++) {
       const info: LockInfo = {
         pid: process.pid,
@@ -75,13 +74,6 @@ export class SessionLock {
           fsyncSync(fd);
         } finally {
           closeSync(fd);
-        }
-        if (staleAside) {
-          try {
-            unlinkSync(staleAside);
-          } catch {
-            // already cleaned up
-          }
         }
         return new SessionLock(path, info, tookOverFrom);
       } catch (error) {
@@ -116,7 +108,8 @@ export class SessionLock {
         }
         continue;
       }
-      staleAside = aside;
+      // The rename was the claim; the stale lock itself is of no further use.
+      unlinkSync(aside);
       tookOverFrom = moved === 'unreadable' || moved === 'gone' ? 'left empty by a writer that stopped while starting' : `left by process ${moved.pid}, no longer running`;
     }
     throw new ExineError(`cannot lock ${sessionPath}: the lock file keeps changing; is another exine starting on it?`);
