@@ -109,7 +109,11 @@ export class SessionLock {
         continue;
       }
       // The rename was the claim; the stale lock itself is of no further use.
-      unlinkSync(aside);
+      try {
+        unlinkSync(aside);
+      } catch {
+        // left aside; harmless
+      }
       tookOverFrom = moved === 'unreadable' || moved === 'gone' ? 'left empty by a writer that stopped while starting' : `left by process ${moved.pid}, no longer running`;
     }
     throw new ExineError(`cannot lock ${sessionPath}: the lock file keeps changing; is another exine starting on it?`);
