@@ -58,6 +58,31 @@ describe('one writer per session file (real processes)', () => {
   });
 });
 
+describe('several writers racing for one stale lock (real processes)', () => {
+  it('exactly one wins; the others are refused naming it', async () => {
+    const path = closedLevel();
+    const dead = startChild(['-e', '0']);
+    await dead.exited();
+    writeFileSync(lockPathOf(path), lockInfo(dead.proc.pid as number, null));
+    const racers = Array.from({ length: 4 }, () => startChild([TALLY_CHILD, path]));
+    const outcomes = await Promise.all(
+      racers.map(
+        (r) =>
+          new Promise<'won' | 'refused'>((resolve) => {
+            r.waitFor(/ready/).then(() => resolve('won'), () => {});
+            r.exited().then((code) => code === 1 && resolve('refused'));
+          }),
+      ),
+    );
+    expect(outcomes.filter((o) => o === 'won')).toHaveLength(1);
+    for (const r of racers.filter((_, i) => outcomes[i] === 'refused')) expect(r.stderr()).toMatch(/is already open in (exine process \d+|another exine that is starting up)/);
+    const winner = racers[outcomes.indexOf('won')]!;
+    winner.proc.stdin.end();
+    expect(await winner.exited()).toBe(0);
+    expect(existsSync(lockPathOf(path))).toBe(false);
+  });
+});
+
 describe('a lock file without content (a writer stopped between creating and filling it)', () => {
   it('is respected while fresh, and taken over once older than the grace period', () => {
     const path = closedLevel();
