@@ -1,3 +1,4 @@
+import { plural } from '../text/cells.js';
 import type { LogScan } from './scan-log.js';
 
 export interface Verdict {
@@ -20,7 +21,7 @@ export function verdictOf(name: string, scan: LogScan): Verdict {
   }
   if (damage) {
     const kept = scan.lines;
-    return { intact: false, summary: `${name}: ${damage.message} (${kept} line${kept === 1 ? '' : 's'} before it are intact)`, warnings };
+    return { intact: false, summary: `${name}: ${damage.message} (${plural(kept, 'line')} before it ${kept === 1 ? 'is' : 'are'} intact)`, warnings };
   }
   const last = scan.events[scan.events.length - 1];
   const closed = last?.type === 'close' || last?.type === 'finish';

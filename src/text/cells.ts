@@ -22,3 +22,8 @@ export function bar(fraction: number, width: number): string {
   const filled = Math.max(0, Math.min(width, Math.round(fraction * width)));
   return `${'#'.repeat(filled)}${'.'.repeat(width - filled)}`;
 }
+
+/** "1 sitting", "2 sittings". */
+export function plural(n: number, word: string): string {
+  return `${n} ${word}${n === 1 ? '' : 's'}`;
+}

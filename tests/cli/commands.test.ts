@@ -40,6 +40,16 @@ describe('the read-only commands on the demo core', () => {
     expect(corylus.ciLow).toBeLessThan(corylus.percent);
   });
 
+  it('summary as text: header, progress, group totals (outside the sum starred) and the taxa', () => {
+    const run = runExine(['summary', 'km1-084cm.jsonl'], demoCopy());
+    expect(run.code).toBe(0);
+    expect(run.stdout).toMatch(/^Kestrel Mere KM-1 · level KM1-84 \(depth 84\)/);
+    expect(run.stdout).toMatch(/not finished yet/);
+    expect(run.stdout).toMatch(/pollen sum 236 of target 500 · 281 grains · 6 traverses · 1 sitting\n/);
+    expect(run.stdout).toMatch(/groups: trees 136 · shrubs 71 · herbs 29 · spores 10\* · markers 31\*/);
+    expect(run.stdout).toMatch(/Corylus\s+shrubs\s+59\s+25\.0\s+19\.9–30\.9/);
+  });
+
   it('export --format wide: one row per level in depth order, one column per taxon', () => {
     const dir = demoCopy();
     const run = runExine(['export', ...readdirSync(dir).reverse(), '--format', 'wide'], dir);

@@ -4,6 +4,7 @@ import { ExineError, UsageError } from '../../errors.js';
 import { toCsv } from '../../export/csv-text.js';
 import { LONG_COLUMNS, longRows, orderLevels, wideTable, type ExportLevel } from '../../export/level-export.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
+import { plural } from '../../text/cells.js';
 import { readLevel } from '../../session/session-files.js';
 import { parseFlags } from '../parse-flags.js';
 
@@ -32,7 +33,7 @@ export function exportCommand(args: string[]): number {
       : toCsv(LONG_COLUMNS, longRows(orderLevels(levels)));
   if (out) {
     writeFileAtomic(out, csv, values.force === true);
-    process.stderr.write(`exine: wrote ${levels.length} level${levels.length === 1 ? '' : 's'} to ${values.out}\n`);
+    process.stderr.write(`exine: wrote ${plural(levels.length, 'level')} to ${values.out}\n`);
   } else process.stdout.write(csv);
   return 0;
 }

@@ -1,8 +1,9 @@
 import { resolve } from 'node:path';
 import { UsageError } from '../../errors.js';
+import { GROUPS } from '../../keymap/groups.js';
 import { readLevel } from '../../session/session-files.js';
 import { levelTable } from '../../stats/level-table.js';
-import { ci, fit, pct, right } from '../../text/cells.js';
+import { ci, fit, plural, pct, right } from '../../text/cells.js';
 import { parseFlags } from '../parse-flags.js';
 
 export function summaryCommand(args: string[]): number {
@@ -37,6 +38,7 @@ export function summaryCommand(args: string[]): number {
         group: r.group,
         inSum: r.inSum,
         count: r.count,
+        basis: r.basis,
         percent: r.percent,
         ciLow: r.ciLow,
         ciHigh: r.ciHigh,
@@ -49,7 +51,10 @@ export function summaryCommand(args: string[]): number {
   const lines = [
     `${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` (depth ${h.depth})`} · slide ${h.slide ?? '–'}${h.analyst ? ` · ${h.analyst}` : ''}`,
     state.finishedAt ? `finished ${state.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
-    `pollen sum ${table.pollenSum} of target ${state.rules.targetSum}${table.pollenSum >= state.rules.targetSum ? ' (reached)' : ''} · ${table.grains} grains · ${state.traverse} traverses · ${state.sitting} sittings`,
+    `pollen sum ${table.pollenSum} of target ${state.rules.targetSum}${table.pollenSum >= state.rules.targetSum ? ' (reached)' : ''} · ${plural(table.grains, 'grain')} · ${plural(state.traverse, 'traverse')} · ${plural(state.sitting, 'sitting')}`,
+    `groups: ${GROUPS.filter((g) => table.groupTotals[g] > 0 || table.sumGroups.includes(g))
+      .map((g) => `${g} ${table.groupTotals[g]}${table.sumGroups.includes(g) ? '' : '*'}`)
+      .join(' · ')}`,
     '',
     `${fit('taxon', 22)} ${fit('group', 14)} ${right('count', 6)} ${right('%', 6)}  95% CI (Wilson)`,
     ...table.rows
