@@ -92,7 +92,13 @@ export function createLevel(path: string, level: NewLevel, options: WriterOption
  * Reopen a level for counting: verify every line, cut a damaged tail (keeping
  * a backup), refuse a file with damage in the middle, and start a new sitting.
  */
-export function resumeLevel(path: string, options: WriterOptions & { rules?: RuleSet | undefined } = {}): OpenedLevel {
+export interface ResumeOptions extends WriterOptions {
+  readonly rules?: RuleSet | undefined;
+  /** Called with the level as read, before anything is written; throwing leaves the file untouched. */
+  readonly beforeWrite?: (state: LevelState) => void;
+}
+
+export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLevel {
   const lock = SessionLock.acquire(path);
   try {
     const notices: string[] = [];
@@ -104,6 +110,7 @@ export function resumeLevel(path: string, options: WriterOptions & { rules?: Rul
         `${path}: ${scan.corruption?.message}; it was not opened for counting and nothing was changed (exine verify ${path} for details)`,
       );
     }
+    options.beforeWrite?.(folded);
     let repaired = null;
     if (scan.tail) {
       repaired = repairTail(path, bytes, scan.tail, (options.clock ?? (() => new Date()))());

@@ -101,6 +101,7 @@ describe('bad input gets one clear line, the right exit code, and changes nothin
     expect(oneLine(run)).toMatch(/records depth 10, not 99/);
     const keymap = runExine(['count', 'l.jsonl', '--keymap', 'keypad'], dir);
     expect(oneLine(keymap)).toMatch(/was counted with its own keymap "tiny"; resuming always uses that one/);
+    expect(readdirSync(dir)).toEqual(['l.jsonl']);
   });
 
   it('export never overwrites a file without --force', () => {

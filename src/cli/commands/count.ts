@@ -5,7 +5,8 @@ import { DEFAULT_KEYMAP, loadKeymap } from '../../keymap/load-keymap.js';
 import type { Keymap } from '../../keymap/keymap.js';
 import { DEFAULT_RULES, type RuleSet } from '../../rules/rule-set.js';
 import type { LevelInfo } from '../../session/events.js';
-import { createLevel, readLevel, resumeLevel, type OpenedLevel } from '../../session/session-files.js';
+import type { LevelState } from '../../session/level-state.js';
+import { createLevel, resumeLevel, type OpenedLevel } from '../../session/session-files.js';
 import { drawLiveOnThisTerminal } from '../interactive-terminal.js';
 import { finiteNumber, parseFlags, positiveInteger } from '../parse-flags.js';
 
@@ -25,8 +26,7 @@ function sameKeymap(a: Keymap, b: Keymap): boolean {
 }
 
 /** Details given on the command line must agree with those recorded in an existing file. */
-function checkAgainstRecorded(path: string, given: Partial<LevelInfo>, keymap: Keymap | null): void {
-  const { state } = readLevel(path);
+function checkAgainstRecorded(path: string, state: LevelState, given: Partial<LevelInfo>, keymap: Keymap | null): void {
   for (const [field, value] of Object.entries(given)) {
     if (value === undefined) continue;
     const recorded = state.header[field as keyof LevelInfo];
@@ -63,9 +63,15 @@ export function openForCounting(path: string, flags: Record<string, string | und
   };
   const rules: RuleSet | undefined = targetSum === undefined ? undefined : { ...DEFAULT_RULES, targetSum };
   if (existsSync(path)) {
-    checkAgainstRecorded(path, given, flags.keymap ? loadKeymap(flags.keymap).keymap : null);
-    check();
-    return resumeLevel(path, { rules });
+    const keymap = flags.keymap ? loadKeymap(flags.keymap).keymap : null;
+    // One read of the file: the checks run on the level as resume reads it, before it writes.
+    return resumeLevel(path, {
+      rules,
+      beforeWrite: (state) => {
+        checkAgainstRecorded(path, state, given, keymap);
+        check();
+      },
+    });
   }
   const { keymap } = loadKeymap(flags.keymap ?? DEFAULT_KEYMAP);
   const info: LevelInfo = {
