@@ -20,7 +20,7 @@ export function bigSession(events: number): string {
   for (let seq = 1; seq <= events; seq++) {
     let payload: EventPayload;
     if (seq === 1) {
-      payload = { type: 'open', format: FORMAT_VERSION, session: 'b'.repeat(32), level: 'bench', depth: 1, site: null, core: null, slide: null, analyst: null, keymap, rules: DEFAULT_RULES };
+      payload = { type: 'open', format: FORMAT_VERSION, session: 'b'.repeat(32), level: 'bench', depth: 1, site: null, core: null, slide: null, analyst: null, keymap, rules: DEFAULT_RULES, spike: null };
     } else if (seq % 60 === 0) payload = { type: 'traverse', traverse: ++traverse };
     else if (seq % 97 === 0 && (seq - 1) % 60 !== 0) payload = { type: 'undo', of: seq - 1 };
     else {

@@ -14,7 +14,7 @@ const REPEATS = 5;
 function cpuOnly(dir: string, keys: readonly string[]): { p50: number; p99: number } {
   const { keymap } = loadKeymap('temperate-lowland');
   const path = join(dir, 'cpu.jsonl');
-  createLevel(path, { info: { level: 'cpu', depth: 1, site: null, core: null, slide: null, analyst: null }, keymap, rules: DEFAULT_RULES }).writer.close();
+  createLevel(path, { info: { level: 'cpu', depth: 1, site: null, core: null, slide: null, analyst: null }, keymap, rules: DEFAULT_RULES, spike: null }).writer.close();
   const opened = resumeLevel(path, { ops: { writeSync: (_fd, _b, _o, length) => length, fsyncSync: () => {}, ftruncateSync: () => {} } });
   const session = new CountingSession(opened.writer, opened.state);
   const samples: number[] = [];
@@ -36,6 +36,7 @@ export function benchTallyPath(grains = 2000): string[] {
       info: { level: 'bench', depth: 1, site: null, core: null, slide: null, analyst: null },
       keymap,
       rules: DEFAULT_RULES,
+      spike: null,
     });
     const session = new CountingSession(opened.writer, opened.state);
     const keys = Object.keys(keymap.keys);

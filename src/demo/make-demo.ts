@@ -5,7 +5,12 @@ import { join, resolve } from 'node:path';
 import { loadKeymap } from '../keymap/load-keymap.js';
 import type { Keymap } from '../keymap/keymap.js';
 import { encodeLine } from '../log/line-codec.js';
-import { FORMAT_VERSION, type EventPayload } from '../session/events.js';
+import { DEFAULT_RULES, NO_RULES, type RuleSet } from '../rules/rule-set.js';
+import type { Spike } from '../stats/concentration.js';
+import { FORMAT_VERSION, type EventPayload, type OpenEvent, type SessionEvent } from '../session/events.js';
+import { applyEvent, initialState } from '../session/fold.js';
+import type { LevelState } from '../session/level-state.js';
+import { rulesSignal } from '../session/rules-signal.js';
 import { pickWeighted, seededRandom } from './seeded-random.js';
 
 interface DemoLevel {
@@ -15,7 +20,11 @@ interface DemoLevel {
   readonly finished: boolean;
   readonly shares: Readonly<Record<string, number>>;
   readonly start: string;
+  readonly rules?: RuleSet;
 }
+
+// An invented marker batch; a real one comes with its own figures, entered by the analyst.
+const SPIKE: Spike = { tablets: 1, perTablet: 12_500, perTabletSd: 420, volume: 1, mass: null, accumulationRate: 0.05 };
 
 // Invented assemblages: an open birch-pine phase at depth, mixed oak forest above, clearance at the top.
 const LEVELS: readonly DemoLevel[] = [
@@ -25,8 +34,10 @@ const LEVELS: readonly DemoLevel[] = [
     shares: { Quercus: 18, Betula: 5, Alnus: 17, Ulmus: 2, Tilia: 3, Fraxinus: 3, Fagus: 1, Corylus: 16, Salix: 2, Calluna: 4, Hedera: 1, Poaceae: 12, Cyperaceae: 4, 'Plantago lanceolata': 3, Filipendula: 2, Pteridium: 3, Polypodium: 2, Nymphaea: 1, 'Lycopodium (exotic marker)': 8, Indeterminable: 3 } },
   { file: 'km1-060cm.jsonl', depth: 60, sum: 520, finished: true, start: '2026-10-07T08:30:00.000Z',
     shares: { Quercus: 22, Betula: 4, Alnus: 16, Ulmus: 7, Tilia: 6, Fraxinus: 3, Pinus: 3, Corylus: 22, Salix: 1, Hedera: 1, Poaceae: 6, Cyperaceae: 3, Filipendula: 1, Ranunculaceae: 1, Polypodium: 3, Nymphaea: 1, 'Lycopodium (exotic marker)': 9, Indeterminable: 2 } },
+  // The half-counted level is counted to precision and coverage goals instead of a fixed sum.
   { file: 'km1-084cm.jsonl', depth: 84, sum: 236, finished: false, start: '2026-10-08T13:10:00.000Z',
-    shares: { Quercus: 12, Betula: 12, Alnus: 6, Ulmus: 9, Pinus: 14, Corylus: 26, Salix: 3, Poaceae: 6, Cyperaceae: 3, Artemisia: 1, Filipendula: 2, Polypodium: 2, Pteridium: 1, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
+    rules: { ...NO_RULES, precision: { halfWidth: 4, share: 10, taxa: null }, coverage: 0.98, markers: 40, minSum: 300 },
+    shares: { Quercus: 12, Betula: 12, Alnus: 6, Ulmus: 9, Pinus: 14, Corylus: 26, Salix: 3, Poaceae: 6, Cyperaceae: 3, Artemisia: 1, Filipendula: 2, Tilia: 0.6, Fraxinus: 0.4, Hedera: 0.3, Rumex: 0.4, Ranunculaceae: 0.3, Polypodium: 2, Pteridium: 1, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
   { file: 'km1-108cm.jsonl', depth: 108, sum: 501, finished: true, start: '2026-10-09T08:50:00.000Z',
     shares: { Betula: 38, Pinus: 24, Salix: 6, Corylus: 3, Poaceae: 12, Cyperaceae: 8, Artemisia: 5, Amaranthaceae: 2, Rumex: 1, Sphagnum: 2, 'Lycopodium (exotic marker)': 12, Indeterminable: 4 } },
 ];
@@ -41,14 +52,23 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
   let seq = 0;
   let prev = '';
   const lines: string[] = [];
+  let state: LevelState | null = null;
   const write = (payload: EventPayload, advanceMs = 0) => {
     time += advanceMs;
-    const { line, hash } = encodeLine(payload, { seq: ++seq, at: new Date(time).toISOString() }, prev);
+    const stamp = { seq: ++seq, at: new Date(time).toISOString() };
+    const { line, hash } = encodeLine(payload, stamp, prev);
     prev = hash;
     lines.push(line);
-    return seq;
+    const event = { ...payload, ...stamp } as SessionEvent;
+    state = state ? applyEvent(state, event) : initialState(event as OpenEvent, keymap);
+    // The demo records the stop signal where a live count would have.
+    if (payload.type === 'grain' || payload.type === 'undo') {
+      const signal = rulesSignal(state);
+      if (signal) write(signal, 5);
+    }
+    return stamp.seq;
   };
-  write({ type: 'open', format: FORMAT_VERSION, session: hex(32), level: `KM1-${level.depth}`, depth: level.depth, site: 'Kestrel Mere', core: 'KM-1', slide: `KM1-${String(level.depth).padStart(3, '0')}-A`, analyst: 'demo analyst', keymap, rules: { targetSum: 500 } });
+  write({ type: 'open', format: FORMAT_VERSION, session: hex(32), level: `KM1-${level.depth}`, depth: level.depth, site: 'Kestrel Mere', core: 'KM-1', slide: `KM1-${String(level.depth).padStart(3, '0')}-A`, analyst: 'demo analyst', keymap, rules: level.rules ?? DEFAULT_RULES, spike: SPIKE });
   let sitting = 1;
   write({ type: 'sitting', sitting }, 50);
   let traverse = 1;

@@ -1,5 +1,7 @@
 import { groupRank, type Group } from '../keymap/groups.js';
 import type { LevelState } from '../session/level-state.js';
+import { clopperPearsonInterval } from '../stats/clopper-pearson.js';
+import { concentration } from '../stats/concentration.js';
 import { levelTable } from '../stats/level-table.js';
 import type { Cell } from './csv-text.js';
 
@@ -25,18 +27,34 @@ export const LONG_COLUMNS = [
   'percent',
   'ci_low',
   'ci_high',
+  'exact_low',
+  'exact_high',
   'basis',
   'pollen_sum',
+  'markers',
+  'concentration',
+  'conc_low',
+  'conc_high',
+  'conc_unit',
+  'influx',
   'source',
 ] as const;
 
-/** One row per level and taxon; percent of the pollen sum (or of sum + own group outside it), 95% Wilson limits. */
+/**
+ * One row per level and taxon; percent of the pollen sum (or of sum + own group
+ * outside it) with 95% Wilson and Clopper–Pearson limits; with spike data, each
+ * taxon's marker concentration, its exact interval and influx. The columns are the
+ * same for every level, so many levels make one table; cells without a value are empty.
+ */
 export function longRows(levels: readonly ExportLevel[]): Cell[][] {
   const rows: Cell[][] = [];
   for (const { state, source } of levels) {
     const h = state.header;
     const table = levelTable(state);
+    const markers = table.groupTotals.markers;
     for (const r of table.rows) {
+      const exact = r.basis > 0 ? clopperPearsonInterval(r.count, r.basis) : null;
+      const conc = state.spike && r.group !== 'markers' ? concentration(r.count, markers, state.spike) : null;
       rows.push([
         h.level,
         h.depth,
@@ -50,8 +68,16 @@ export function longRows(levels: readonly ExportLevel[]): Cell[][] {
         round(r.percent, 4),
         round(r.ciLow, 4),
         round(r.ciHigh, 4),
+        exact ? round(100 * exact.low, 4) : null,
+        exact ? round(100 * exact.high, 4) : null,
         r.basis,
         table.pollenSum,
+        state.spike ? markers : null,
+        round(conc?.value ?? null, 1),
+        round(conc?.low ?? null, 1),
+        round(conc?.high ?? null, 1),
+        conc ? conc.unit : null,
+        round(conc?.influx ?? null, 2),
         source,
       ]);
     }

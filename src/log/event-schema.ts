@@ -7,7 +7,38 @@ const stamp = { seq: z.number().int().positive(), at: z.iso.datetime({ precision
 const text = z.string();
 const optionalText = z.string().nullable();
 
-const rules = z.object({ targetSum: z.number().int().positive() });
+const count = z.number().int().nonnegative();
+const positive = z.number().positive();
+// Rule fields absent from a format-1 file read as "rule not used" (see normalRules).
+const rules = z.looseObject({
+  targetSum: z.number().int().positive().nullable().optional(),
+  precision: z
+    .looseObject({
+      halfWidth: positive,
+      share: z.number().min(0).max(100).nullable().optional(),
+      taxa: z.array(z.string().min(1)).min(1).nullable().optional(),
+    })
+    .nullable()
+    .optional(),
+  coverage: z.number().gt(0).lte(1).nullable().optional(),
+  plateau: z.number().int().positive().nullable().optional(),
+  markers: z.number().int().positive().nullable().optional(),
+  concError: z.number().gt(0).nullable().optional(),
+  mode: z.enum(['all', 'any']).optional(),
+  minSum: z.number().int().positive().nullable().optional(),
+});
+const spike = z
+  .looseObject({
+    tablets: positive,
+    perTablet: positive,
+    perTabletSd: z.number().nonnegative().nullable(),
+    volume: positive.nullable(),
+    mass: positive.nullable(),
+    accumulationRate: positive.nullable(),
+  })
+  .refine((s) => (s.volume === null) !== (s.mass === null), { message: 'a spike gives either a volume or a mass' })
+  .nullable()
+  .optional();
 
 const open = z.object({
   ...stamp,
@@ -22,6 +53,7 @@ const open = z.object({
   analyst: optionalText,
   keymap: z.unknown(),
   rules,
+  spike,
 });
 
 const grain = z.object({
@@ -42,7 +74,9 @@ const note = z.object({
   stage: z.object({ x: z.number(), y: z.number() }).nullable(),
 });
 const sitting = z.object({ ...stamp, type: z.literal('sitting'), sitting: z.number().int().positive() });
-const ruleChange = z.object({ ...stamp, type: z.literal('rules'), rules });
+const ruleChange = z.object({ ...stamp, type: z.literal('rules'), rules, spike });
+const rulesMet = z.object({ ...stamp, type: z.literal('rules-met'), sum: count, grains: count, met: z.array(z.string()) });
+const rulesUnmet = z.object({ ...stamp, type: z.literal('rules-unmet'), sum: count, grains: count });
 const repair = z.object({
   ...stamp,
   type: z.literal('repair'),
@@ -62,6 +96,8 @@ export const eventSchema = z.discriminatedUnion('type', [
   note,
   sitting,
   ruleChange,
+  rulesMet,
+  rulesUnmet,
   repair,
   close,
   finish,

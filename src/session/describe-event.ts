@@ -1,3 +1,4 @@
+import { describeRules, normalRules } from '../rules/rule-set.js';
 import type { SessionEvent } from './events.js';
 
 /** One short line per event, for the recent-events list and reports. */
@@ -16,7 +17,11 @@ export function describeEvent(event: SessionEvent): string {
     case 'sitting':
       return `sitting ${event.sitting} started`;
     case 'rules':
-      return `target sum now ${event.rules.targetSum}`;
+      return `rules now: ${describeRules(normalRules(event.rules))}${event.spike ? ' (spike data recorded)' : ''}`;
+    case 'rules-met':
+      return `STOP RULES MET at pollen sum ${event.sum}`;
+    case 'rules-unmet':
+      return `stop rules no longer met (sum ${event.sum})`;
     case 'repair':
       return `tail repaired (${event.cutBytes} bytes cut)`;
     case 'close':

@@ -1,8 +1,14 @@
 import type { Keymap } from '../keymap/keymap.js';
 import type { RuleSet } from '../rules/rule-set.js';
+import type { RuleName } from '../rules/evaluate-rules.js';
+import type { Spike } from '../stats/concentration.js';
 
-/** The session-file format this version writes; files with a higher number are refused. */
-export const FORMAT_VERSION = 1;
+/**
+ * The session-file format this version writes; files with a higher number are refused.
+ * 2 added the full rule set, marker spike data and the rules-met / rules-unmet events;
+ * format 1 files read as format 2 with a target-sum rule and no spike.
+ */
+export const FORMAT_VERSION = 2;
 
 /** What the first line of every session file records about the level. */
 export interface LevelInfo {
@@ -29,6 +35,8 @@ export interface OpenPayload extends LevelInfo {
   readonly session: string;
   readonly keymap: Keymap;
   readonly rules: RuleSet;
+  /** Exotic marker spike added to the sample, or null. */
+  readonly spike: Spike | null;
 }
 
 export interface GrainPayload {
@@ -64,9 +72,28 @@ export interface SittingPayload {
   readonly sitting: number;
 }
 
+/** The rules or the spike data changed (on resume); both are given whole. */
 export interface RulesPayload {
   readonly type: 'rules';
   readonly rules: RuleSet;
+  readonly spike: Spike | null;
+}
+
+/** The rule set became met: the count could have stopped here. */
+export interface RulesMetPayload {
+  readonly type: 'rules-met';
+  /** Pollen sum and all grains at that moment. */
+  readonly sum: number;
+  readonly grains: number;
+  /** The rules that were met. */
+  readonly met: readonly RuleName[];
+}
+
+/** The rule set is no longer met (an undo, or the rules changed). */
+export interface RulesUnmetPayload {
+  readonly type: 'rules-unmet';
+  readonly sum: number;
+  readonly grains: number;
 }
 
 export interface RepairPayload {
@@ -96,6 +123,8 @@ export type EventPayload =
   | NotePayload
   | SittingPayload
   | RulesPayload
+  | RulesMetPayload
+  | RulesUnmetPayload
   | RepairPayload
   | ClosePayload
   | FinishPayload;

@@ -1,4 +1,5 @@
 import type { Keymap } from '../keymap/keymap.js';
+import { normalRules } from '../rules/rule-set.js';
 import type { OpenEvent, SessionEvent } from './events.js';
 import { RECENT_EVENTS, type GrainStack, type LevelState } from './level-state.js';
 
@@ -6,12 +7,17 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
   return {
     header: open,
     keymap,
-    rules: open.rules,
+    rules: normalRules(open.rules),
+    spike: open.spike ?? null,
+    rulesMet: false,
+    firstRulesMet: null,
+    lastRulesMet: null,
     lastSeq: open.seq,
     lastAt: open.at,
     traverse: 1,
     counts: {},
     grains: 0,
+    firstSeen: {},
     stack: null,
     undos: 0,
     recent: [open],
@@ -31,12 +37,13 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
  */
 type Draft = { -readonly [K in keyof LevelState]: LevelState[K] } & {
   counts: Record<string, number>;
+  firstSeen: Record<string, number>;
   recent: SessionEvent[];
   ignored: number[];
 };
 
 function draftOf(state: LevelState): Draft {
-  return { ...state, counts: { ...state.counts }, recent: [...state.recent], ignored: [...state.ignored] };
+  return { ...state, counts: { ...state.counts }, firstSeen: { ...state.firstSeen }, recent: [...state.recent], ignored: [...state.ignored] };
 }
 
 /**
@@ -61,6 +68,13 @@ function taxonOf(stack: GrainStack | null, seq: number): string | undefined {
   return undefined;
 }
 
+/** The lowest seq of `taxon` still in the stack (the stack is newest first). */
+function firstOf(stack: GrainStack | null, taxon: string): number | undefined {
+  let first: number | undefined;
+  for (let s = stack; s; s = s.below) if (s.taxon === taxon) first = s.seq;
+  return first;
+}
+
 function step(d: Draft, event: SessionEvent): void {
   d.lastSeq = event.seq;
   d.lastAt = event.at;
@@ -74,6 +88,7 @@ function step(d: Draft, event: SessionEvent): void {
       return;
     case 'grain':
       d.counts[event.taxon] = (d.counts[event.taxon] ?? 0) + 1;
+      d.firstSeen[event.taxon] ??= event.seq;
       d.grains++;
       d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, below: d.stack };
       return;
@@ -85,8 +100,14 @@ function step(d: Draft, event: SessionEvent): void {
         return;
       }
       // A fully undone taxon reads as never counted.
-      if (d.counts[taxon] === 1) delete d.counts[taxon];
-      else d.counts[taxon] = (d.counts[taxon] ?? 0) - 1;
+      if (d.counts[taxon] === 1) {
+        delete d.counts[taxon];
+        delete d.firstSeen[taxon];
+      } else {
+        d.counts[taxon] = (d.counts[taxon] ?? 0) - 1;
+        // Undoing a type's first grain moves its first appearance to its next grain.
+        if (d.firstSeen[taxon] === event.of) d.firstSeen[taxon] = firstOf(stack, taxon) as number;
+      }
       d.grains--;
       d.stack = stack;
       d.undos++;
@@ -102,7 +123,16 @@ function step(d: Draft, event: SessionEvent): void {
       d.sittingStartedAt = event.at;
       return;
     case 'rules':
-      d.rules = event.rules;
+      d.rules = normalRules(event.rules);
+      d.spike = event.spike ?? null;
+      return;
+    case 'rules-met':
+      d.rulesMet = true;
+      d.lastRulesMet = { seq: event.seq, at: event.at, sum: event.sum };
+      d.firstRulesMet ??= d.lastRulesMet;
+      return;
+    case 'rules-unmet':
+      d.rulesMet = false;
       return;
     case 'repair':
       d.repairs++;

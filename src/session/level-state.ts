@@ -1,5 +1,6 @@
 import type { Keymap } from '../keymap/keymap.js';
 import type { RuleSet } from '../rules/rule-set.js';
+import type { Spike } from '../stats/concentration.js';
 import type { OpenEvent, SessionEvent } from './events.js';
 
 export interface CountedGrain {
@@ -18,12 +19,20 @@ export interface LevelState {
   readonly header: OpenEvent;
   readonly keymap: Keymap;
   readonly rules: RuleSet;
+  readonly spike: Spike | null;
+  /** As the last rules-met / rules-unmet event says. */
+  readonly rulesMet: boolean;
+  /** The first and the latest rules-met events, or null. */
+  readonly firstRulesMet: { readonly seq: number; readonly at: string; readonly sum: number } | null;
+  readonly lastRulesMet: { readonly seq: number; readonly at: string; readonly sum: number } | null;
   readonly lastSeq: number;
   readonly lastAt: string;
   readonly traverse: number;
   /** Grains per taxon, undone grains excluded. */
   readonly counts: Readonly<Record<string, number>>;
   readonly grains: number;
+  /** seq of the first still-counted grain of each counted taxon: when each type entered the count. */
+  readonly firstSeen: Readonly<Record<string, number>>;
   readonly stack: GrainStack | null;
   readonly undos: number;
   /** The last few events, oldest first. */

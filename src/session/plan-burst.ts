@@ -4,6 +4,7 @@ import { decide } from './command-event.js';
 import type { EventPayload, SessionEvent } from './events.js';
 import { applyEvents } from './fold.js';
 import type { LevelState } from './level-state.js';
+import { rulesSignal } from './rules-signal.js';
 
 export type Tone = 'info' | 'warning' | 'error';
 export interface Message {
@@ -63,9 +64,13 @@ export function planBurst(start: LevelState, confirmingFinish: boolean, keys: re
     const state = current();
     const decision = decide(state, resolveKey(state.keymap, key));
     switch (decision.kind) {
-      case 'record':
+      case 'record': {
         stage(decision.payload);
+        // Judged grain by grain, so a burst that crosses the line records the sum where it crossed.
+        const signal = decision.payload.type === 'grain' || decision.payload.type === 'undo' ? rulesSignal(current()) : null;
+        if (signal) stage(signal);
         break;
+      }
       case 'say':
         message = { text: decision.message, tone: 'info' };
         break;

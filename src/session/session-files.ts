@@ -7,7 +7,9 @@ import { repairTail } from '../log/repair-tail.js';
 import { scanLog, type LogScan } from '../log/scan-log.js';
 import { SessionLock } from '../log/session-lock.js';
 import { SessionWriter, type WriterOptions } from '../log/session-writer.js';
-import { sameRules, type RuleSet } from '../rules/rule-set.js';
+import { describeRules, sameRules, type RuleSet } from '../rules/rule-set.js';
+import type { Spike } from '../stats/concentration.js';
+import { rulesSignal } from './rules-signal.js';
 import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent } from './events.js';
 import { applyEvent, foldEvents, startFold, type Folding } from './fold.js';
 import type { LevelState } from './level-state.js';
@@ -23,6 +25,7 @@ export interface NewLevel {
   readonly info: LevelInfo;
   readonly keymap: Keymap;
   readonly rules: RuleSet;
+  readonly spike: Spike | null;
 }
 
 function readBytes(path: string): Buffer {
@@ -71,12 +74,15 @@ export function createLevel(path: string, level: NewLevel, options: WriterOption
         ...level.info,
         keymap: level.keymap,
         rules: level.rules,
+        spike: level.spike,
       },
       lock,
       options,
     );
     try {
-      const state = applyEvent(foldEvents(event as OpenEvent, level.keymap, []), writer.append({ type: 'sitting', sitting: 1 }));
+      let state = applyEvent(foldEvents(event as OpenEvent, level.keymap, []), writer.append({ type: 'sitting', sitting: 1 }));
+      const signal = rulesSignal(state);
+      if (signal) state = applyEvent(state, writer.append(signal));
       return { writer, state, notices: [] };
     } catch (error) {
       writer.close();
@@ -92,10 +98,20 @@ export function createLevel(path: string, level: NewLevel, options: WriterOption
  * Reopen a level for counting: verify every line, cut a damaged tail (keeping
  * a backup), refuse a file with damage in the middle, and start a new sitting.
  */
-export interface ResumeOptions extends WriterOptions {
+export interface RuleChange {
   readonly rules?: RuleSet | undefined;
-  /** Called with the level as read, before anything is written; throwing leaves the file untouched. */
-  readonly beforeWrite?: (state: LevelState) => void;
+  readonly spike?: Spike | null | undefined;
+}
+
+export interface ResumeOptions extends WriterOptions {
+  /** Rules and spike data given again on resume: a change is recorded. */
+  readonly rules?: RuleSet | undefined;
+  readonly spike?: Spike | undefined;
+  /**
+   * Called with the level as read, before anything is written; throwing leaves the
+   * file untouched. It may return rules and spike data worked out from the level.
+   */
+  readonly beforeWrite?: (state: LevelState) => RuleChange | void;
 }
 
 export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLevel {
@@ -110,7 +126,7 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
         `${path}: ${scan.corruption?.message}; it was not opened for counting and nothing was changed (exine verify ${path} for details)`,
       );
     }
-    options.beforeWrite?.(folded);
+    const change = { rules: options.rules, spike: options.spike, ...(options.beforeWrite?.(folded) ?? {}) };
     let repaired = null;
     if (scan.tail) {
       repaired = repairTail(path, bytes, scan.tail, (options.clock ?? (() => new Date()))());
@@ -134,11 +150,17 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
         record({ type: 'repair', damage: damage.message, line: damage.line, cutBytes, backup });
       }
       record({ type: 'sitting', sitting: state.sitting + 1 });
-      const before = state.rules;
-      if (options.rules && !sameRules(options.rules, before)) {
-        record({ type: 'rules', rules: options.rules });
-        notices.push(`target pollen sum changed from ${before.targetSum} to ${options.rules.targetSum}`);
+      const before = state;
+      const rules = change.rules ?? before.rules;
+      const spike = change.spike === undefined ? before.spike : change.spike;
+      const rulesChanged = !sameRules(rules, before.rules);
+      if (rulesChanged || JSON.stringify(spike) !== JSON.stringify(before.spike)) {
+        record({ type: 'rules', rules, spike });
+        if (rulesChanged) notices.push(`stop rules changed from ${describeRules(before.rules)} to ${describeRules(rules)}`);
+        else notices.push('marker spike data changed');
       }
+      const signal = rulesSignal(state);
+      if (signal) record(signal);
     } catch (error) {
       writer.close();
       throw error;

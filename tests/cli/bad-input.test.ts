@@ -1,3 +1,4 @@
+import { DEFAULT_RULES } from '../../src/rules/rule-set.js';
 import { existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -67,12 +68,12 @@ describe('bad input gets one clear line, the right exit code, and changes nothin
   });
 
   it('a session file from a future format version is refused by every command, untouched', () => {
-    const dir = folderWith({ 'future.jsonl': sessionText([{ ...openPayload(), format: 2 }, grain('Alnus')]) });
+    const dir = folderWith({ 'future.jsonl': sessionText([{ ...openPayload(), format: 3 }, grain('Alnus')]) });
     const before = snapshot(dir);
     for (const args of [['count', 'future.jsonl'], ['summary', 'future.jsonl'], ['export', 'future.jsonl'], ['verify', 'future.jsonl']]) {
       const run = runExine(args, dir);
       expect(run.code, args.join(' ')).toBe(1);
-      expect(oneLine(run)).toMatch(/line 1 is session format 2, written by a newer exine \(this one reads format 1\); update exine/);
+      expect(oneLine(run)).toMatch(/line 1 is session format 3, written by a newer exine \(this one reads format 2\); update exine/);
     }
     expect(snapshot(dir)).toEqual(before);
   });
@@ -80,7 +81,7 @@ describe('bad input gets one clear line, the right exit code, and changes nothin
   it('a level in a folder that does not exist is refused before anything is written', () => {
     const dir = tempDir();
     const { createLevel } = levelFiles;
-    expect(() => createLevel(join(dir, 'no', 'l.jsonl'), { info: { level: 'x', depth: null, site: null, core: null, slide: null, analyst: null }, keymap: TINY_KEYMAP, rules: { targetSum: 500 } })).toThrow(
+    expect(() => createLevel(join(dir, 'no', 'l.jsonl'), { info: { level: 'x', depth: null, site: null, core: null, slide: null, analyst: null }, keymap: TINY_KEYMAP, rules: DEFAULT_RULES, spike: null })).toThrow(
       /cannot create .*l\.jsonl: the folder .*no does not exist/,
     );
     expect(readdirSync(dir)).toEqual([]);

@@ -93,7 +93,7 @@ describe('exine demo in a terminal', () => {
     await t.ready(/Kestrel Mere KM-1 · level KM1-84/);
     const sum = Number(/Pollen sum (\d+)/.exec(t.output())?.[1]);
     t.type('cc');
-    await t.waitFor(new RegExp(`Pollen sum ${sum + 2} /`));
+    await t.waitFor(new RegExp(`Pollen sum ${sum + 2}\\b`));
     t.type('\x03');
     expect(await t.exited()).toBe(0);
     expect(t.output()).toMatch(/the demo copy stays in .*km1-084cm\.jsonl/);

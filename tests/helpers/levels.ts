@@ -2,8 +2,11 @@ import { join } from 'node:path';
 import { loadKeymap } from '../../src/keymap/load-keymap.js';
 import type { Keymap } from '../../src/keymap/keymap.js';
 import { encodeLine } from '../../src/log/line-codec.js';
-import { DEFAULT_RULES } from '../../src/rules/rule-set.js';
-import { FORMAT_VERSION, type EventPayload, type OpenPayload } from '../../src/session/events.js';
+import { DEFAULT_RULES, type RuleSet } from '../../src/rules/rule-set.js';
+import type { Spike } from '../../src/stats/concentration.js';
+import { FORMAT_VERSION, type EventPayload, type OpenEvent, type OpenPayload, type SessionEvent } from '../../src/session/events.js';
+import { foldEvents } from '../../src/session/fold.js';
+import type { LevelState } from '../../src/session/level-state.js';
 import { createLevel } from '../../src/session/session-files.js';
 
 export const lowland = (): Keymap => loadKeymap('temperate-lowland').keymap;
@@ -35,6 +38,7 @@ export function openPayload(keymap: Keymap = TINY_KEYMAP, overrides: Partial<Ope
     analyst: null,
     keymap,
     rules: DEFAULT_RULES,
+    spike: null,
     ...overrides,
   };
 }
@@ -54,12 +58,39 @@ export function sessionText(payloads: readonly EventPayload[], start = Date.pars
 export const grain = (taxon: string, traverse = 1, key = taxon[0]?.toLowerCase() ?? 'x'): EventPayload => ({ type: 'grain', taxon, traverse, key });
 
 /** A new level file made by the real writer, in `dir`. */
-export function newLevelFile(dir: string, name = 'level.jsonl', keymap: Keymap = TINY_KEYMAP) {
+export function newLevelFile(dir: string, name = 'level.jsonl', keymap: Keymap = TINY_KEYMAP, rules: RuleSet = DEFAULT_RULES, spike: Spike | null = null) {
   const path = join(dir, name);
   const opened = createLevel(path, {
     info: { level: 'T-1', depth: 10, site: 'Test Mere', core: 'TM-1', slide: 'A', analyst: null },
     keymap,
-    rules: DEFAULT_RULES,
+    rules,
+    spike,
   });
   return { path, ...opened };
+}
+
+/** A keymap of `n` taxa in the pollen sum (T01, T02 …) plus a marker, for reference data sets. */
+export function keymapOf(n: number): Keymap {
+  const chars = [...'abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ0123456789'];
+  const keys: Record<string, { taxon: string; group: 'trees' | 'markers' }> = {};
+  for (let i = 0; i < n; i++) keys[chars[i] as string] = { taxon: `T${String(i + 1).padStart(2, '0')}`, group: 'trees' };
+  keys['.'] = { taxon: 'Marker', group: 'markers' };
+  return { name: `reference-${n}`, keys, actions: { undo: 'backspace', traverse: 'tab', note: 'enter' }, sum: ['trees', 'shrubs', 'herbs'] };
+}
+
+/** Grain events for counts laid out per taxon (T01 gets counts[0] …), then `markers` marker grains. */
+export function grainsFor(counts: readonly number[], markers = 0): EventPayload[] {
+  const out: EventPayload[] = [];
+  counts.forEach((c, i) => {
+    for (let k = 0; k < c; k++) out.push(grain(`T${String(i + 1).padStart(2, '0')}`));
+  });
+  for (let k = 0; k < markers; k++) out.push(grain('Marker', 1, '.'));
+  return out;
+}
+
+/** The folded state of an open event plus payloads, with made-up stamps. */
+export function stateOf(open: OpenPayload, payloads: readonly EventPayload[]): LevelState {
+  const at = (i: number) => new Date(Date.UTC(2026, 10, 2, 9, 0, 0, i)).toISOString();
+  const events = payloads.map((p, i) => ({ ...p, seq: i + 2, at: at(i + 1) }) as SessionEvent);
+  return foldEvents({ ...open, seq: 1, at: at(0) } as OpenEvent, open.keymap, events);
 }

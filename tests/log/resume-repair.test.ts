@@ -1,3 +1,4 @@
+import { DEFAULT_RULES } from '../../src/rules/rule-set.js';
 import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -35,7 +36,7 @@ describe('resuming a level', () => {
   it('records a changed target as a rules event', () => {
     const path = join(tempDir(), 'l.jsonl');
     writeFileSync(path, body);
-    const opened = resumeLevel(path, { rules: { targetSum: 300 } });
+    const opened = resumeLevel(path, { rules: { ...DEFAULT_RULES, targetSum: 300 } });
     opened.writer.close();
     expect(opened.state.rules.targetSum).toBe(300);
     expect(readLevel(path).state.recent.at(-1)).toMatchObject({ type: 'rules', rules: { targetSum: 300 } });

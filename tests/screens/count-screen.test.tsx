@@ -112,7 +112,7 @@ describe('the counting screen', () => {
     copyFileSync(join(import.meta.dirname, '../../demo-sessions/km1-084cm.jsonl'), path);
     const s = await screenFor(path);
     const frame = s.lastFrame() ?? '';
-    for (const part of [/Kestrel Mere KM-1 · level KM1-84 · depth 84/, /traverse 6 · sitting 2/, /Key Taxon/, /Pollen sum 236 \/ 500/, /Indeterminable\s+4 \*/, /Last recorded/, /#296 sitting 2 started/, /Backspace undo/]) {
+    for (const part of [/Kestrel Mere KM-1 · level KM1-84 · depth 84/, /traverse 6 · sitting 2/, /Key Taxon/, /Pollen sum 236\n/, /Indeterminable\s+4 \*/, /Stop if all · sum≥300/, /±4 ≥10% 5\.4\/4\s+\+204/, /cover \.987\/\.98\s+met/, /markers 30\/40\s+\+79/, /conc 98\.3k\/cm³ ±20%/, /Last recorded/, /#295 sitting 2 started/, /Backspace undo/]) {
       expect(frame).toMatch(part);
     }
     expect(frame.split('\n').length).toBeLessThan(24);

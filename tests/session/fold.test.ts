@@ -6,6 +6,7 @@ import { decide } from '../../src/session/command-event.js';
 import { resolveKey } from '../../src/keymap/resolve-key.js';
 import { splitKeys } from '../../src/input/key-press.js';
 import { RECENT_EVENTS, type LevelState } from '../../src/session/level-state.js';
+import { NO_RULES, type RuleSet } from '../../src/rules/rule-set.js';
 import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
 
 const at = (i: number) => new Date(Date.UTC(2026, 10, 2, 9, 0, i)).toISOString();
@@ -56,7 +57,10 @@ describe('the fold of a level', () => {
     expect(s.closed).toBe(true);
     const later = applyEvent(s, { type: 'sitting', sitting: 2, seq: 7, at: at(7) });
     expect([later.closed, later.sitting, later.sittingStartedAt]).toEqual([false, 2, at(7)]);
-    expect(applyEvent(later, { type: 'rules', rules: { targetSum: 300 }, seq: 8, at: at(8) }).rules.targetSum).toBe(300);
+    // A format-1 rules event carried the target alone; it reads as a full rule set.
+    const changed = applyEvent(later, { type: 'rules', rules: { targetSum: 300 } as RuleSet, seq: 8, at: at(8) } as SessionEvent);
+    expect(changed.rules).toEqual({ ...NO_RULES, targetSum: 300 });
+    expect(changed.spike).toBeNull();
   });
 
   it('keeps a window of recent events', () => {

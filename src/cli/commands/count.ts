@@ -3,12 +3,12 @@ import { basename, extname, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
 import { DEFAULT_KEYMAP, loadKeymap } from '../../keymap/load-keymap.js';
 import type { Keymap } from '../../keymap/keymap.js';
-import { DEFAULT_RULES, type RuleSet } from '../../rules/rule-set.js';
 import type { LevelInfo } from '../../session/events.js';
 import type { LevelState } from '../../session/level-state.js';
 import { createLevel, resumeLevel, type OpenedLevel } from '../../session/session-files.js';
 import { drawLiveOnThisTerminal } from '../interactive-terminal.js';
-import { finiteNumber, parseFlags, positiveInteger } from '../parse-flags.js';
+import { finiteNumber, parseFlags } from '../parse-flags.js';
+import { RULE_OPTIONS, rulesFromFlags, spikeFromFlags } from '../rule-flags.js';
 
 const OPTIONS = {
   keymap: { type: 'string' },
@@ -18,7 +18,8 @@ const OPTIONS = {
   core: { type: 'string' },
   slide: { type: 'string' },
   analyst: { type: 'string' },
-  target: { type: 'string' },
+  quiet: { type: 'boolean' },
+  ...RULE_OPTIONS,
 } as const;
 
 function sameKeymap(a: Keymap, b: Keymap): boolean {
@@ -51,7 +52,6 @@ export function requireTerminal(command: string): void {
 
 /** Open or create the level for counting; the caller runs the screen. */
 export function openForCounting(path: string, flags: Record<string, string | undefined>, check: () => void = () => {}): OpenedLevel {
-  const targetSum = positiveInteger('count', 'target', flags.target);
   const depth = finiteNumber('count', 'depth', flags.depth);
   const given: Partial<LevelInfo> = {
     level: flags.level,
@@ -61,15 +61,16 @@ export function openForCounting(path: string, flags: Record<string, string | und
     slide: flags.slide,
     analyst: flags.analyst,
   };
-  const rules: RuleSet | undefined = targetSum === undefined ? undefined : { ...DEFAULT_RULES, targetSum };
   if (existsSync(path)) {
     const keymap = flags.keymap ? loadKeymap(flags.keymap).keymap : null;
     // One read of the file: the checks run on the level as resume reads it, before it writes.
     return resumeLevel(path, {
-      rules,
       beforeWrite: (state) => {
         checkAgainstRecorded(path, state, given, keymap);
+        const spike = spikeFromFlags(flags, state.spike);
+        const rules = rulesFromFlags(flags, state.keymap, state.rules, spike);
         check();
+        return { rules, spike };
       },
     });
   }
@@ -82,16 +83,19 @@ export function openForCounting(path: string, flags: Record<string, string | und
     slide: given.slide ?? null,
     analyst: given.analyst ?? null,
   };
+  const spike = spikeFromFlags(flags, null);
+  const rules = rulesFromFlags(flags, keymap, null, spike) as NonNullable<ReturnType<typeof rulesFromFlags>>;
   check();
-  return createLevel(path, { info, keymap, rules: rules ?? DEFAULT_RULES });
+  return createLevel(path, { info, keymap, rules, spike });
 }
 
 export async function countCommand(args: string[]): Promise<number> {
   const { values, positionals } = parseFlags('count', args, OPTIONS);
   if (positionals.length !== 1) throw new UsageError('exine count: give one session FILE (see exine count --help)');
   const path = resolve(positionals[0] as string);
-  const opened = openForCounting(path, values as Record<string, string | undefined>, () => requireTerminal('count'));
+  const { quiet, ...flags } = values;
+  const opened = openForCounting(path, flags as Record<string, string | undefined>, () => requireTerminal('count'));
   drawLiveOnThisTerminal();
   const { runCountScreen } = await import('../../screens/run-count-screen.js');
-  return runCountScreen(opened);
+  return runCountScreen(opened, { bell: !quiet });
 }

@@ -1,68 +1,83 @@
 import { resolve } from 'node:path';
 import { UsageError } from '../../errors.js';
+import { levelSummary, type LevelSummary } from '../../export/level-summary.js';
 import { GROUPS } from '../../keymap/groups.js';
 import { readLevel } from '../../session/session-files.js';
-import { levelTable } from '../../stats/level-table.js';
 import { ci, fit, plural, pct, right } from '../../text/cells.js';
-import { parseFlags } from '../parse-flags.js';
+import { parseFlags, positiveInteger } from '../parse-flags.js';
 
-export function summaryCommand(args: string[]): number {
-  const { values, positionals } = parseFlags('summary', args, { json: { type: 'boolean', default: false } });
-  if (positionals.length !== 1) throw new UsageError('exine summary: give one session FILE (see exine summary --help)');
-  const { state, warnings } = readLevel(resolve(positionals[0] as string));
-  for (const w of warnings) process.stderr.write(`exine: ${w}\n`);
-  const table = levelTable(state);
-  const h = state.header;
-  if (values.json) {
-    const out = {
-      level: h.level,
-      depth: h.depth,
-      site: h.site,
-      core: h.core,
-      slide: h.slide,
-      analyst: h.analyst,
-      keymap: state.keymap.name,
-      pollenSum: table.pollenSum,
-      grains: table.grains,
-      types: table.rows.filter((r) => r.count > 0).length,
-      targetSum: state.rules.targetSum,
-      targetReached: table.pollenSum >= state.rules.targetSum,
-      traverses: state.traverse,
-      sittings: state.sitting,
-      closedCleanly: state.closed,
-      finishedAt: state.finishedAt,
-      groups: table.groupTotals,
-      taxa: table.rows.map((r) => ({
-        key: r.key,
-        taxon: r.taxon,
-        group: r.group,
-        inSum: r.inSum,
-        count: r.count,
-        basis: r.basis,
-        percent: r.percent,
-        ciLow: r.ciLow,
-        ciHigh: r.ciHigh,
-      })),
-    };
-    process.stdout.write(`${JSON.stringify(out, null, 2)}\n`);
-    return 0;
-  }
-  const where = [h.site, h.core].filter(Boolean).join(' ');
+const OPTIONS = {
+  json: { type: 'boolean', default: false },
+  rarefy: { type: 'string', multiple: true },
+} as const;
+
+const fixed = (v: number | null, places: number) => (v === null ? '–' : v.toFixed(places));
+
+function ruleValue(rule: string, v: number | null): string {
+  if (v === null) return '–';
+  if (rule === 'coverage') return v.toFixed(4);
+  if (rule === 'precision') return v.toFixed(2);
+  if (rule === 'conc-error') return `${(100 * v).toFixed(1)}%`;
+  return String(v);
+}
+
+function needText(r: LevelSummary['rules'][number]): string {
+  if (r.met) return 'met';
+  if (r.grainsNeeded === null) return r.note ?? 'unknown';
+  return `about ${r.grainsNeeded} more grains${r.note ? ` (${r.note})` : ''}`;
+}
+
+function textReport(s: LevelSummary): string[] {
+  const where = [s.site, s.core].filter(Boolean).join(' ');
   const lines = [
-    `${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` (depth ${h.depth})`} · slide ${h.slide ?? '–'}${h.analyst ? ` · ${h.analyst}` : ''}`,
-    state.finishedAt ? `finished ${state.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
-    `pollen sum ${table.pollenSum} of target ${state.rules.targetSum}${table.pollenSum >= state.rules.targetSum ? ' (reached)' : ''} · ${plural(table.grains, 'grain')} · ${plural(state.traverse, 'traverse')} · ${plural(state.sitting, 'sitting')}`,
-    `groups: ${GROUPS.filter((g) => table.groupTotals[g] > 0 || table.sumGroups.includes(g))
-      .map((g) => `${g} ${table.groupTotals[g]}${table.sumGroups.includes(g) ? '' : '*'}`)
+    `${where ? `${where} · ` : ''}level ${s.level}${s.depth === null ? '' : ` (depth ${s.depth})`} · slide ${s.slide ?? '–'}${s.analyst ? ` · ${s.analyst}` : ''}`,
+    s.finishedAt ? `finished ${s.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
+    `pollen sum ${s.pollenSum} · ${plural(s.grains, 'grain')} · ${plural(s.types, 'type')} in the sum · ${plural(s.traverses, 'traverse')} · ${plural(s.sittings, 'sitting')}`,
+    `groups: ${GROUPS.filter((g) => s.groups[g] > 0 || s.sumGroups.includes(g))
+      .map((g) => `${g} ${s.groups[g]}${s.sumGroups.includes(g) ? '' : '*'}`)
       .join(' · ')}`,
     '',
-    `${fit('taxon', 22)} ${fit('group', 14)} ${right('count', 6)} ${right('%', 6)}  95% CI (Wilson)`,
-    ...table.rows
+    `stop rules: ${s.ruleSet} — ${s.met ? 'MET' : s.grainsNeeded === null ? 'not met' : `not met (about ${s.grainsNeeded} more grains)`}`,
+    ...s.rules.map((r) => `  ${fit(r.label, 22)} ${right(ruleValue(r.rule, r.value), 7)} of ${fit(ruleValue(r.rule, r.target), 6)} ${needText(r)}`),
+    ...(s.firstMet ? [`  first met at pollen sum ${s.firstMet.sum} (${s.firstMet.at})`] : []),
+    '',
+    `coverage ${fixed(s.coverage, 4)} (Chao & Jost 2012) · Good–Turing ${fixed(s.goodTuring, 4)} · grains since a new type ${s.sinceNewType}`,
+    s.chao1
+      ? `Chao1 richness ${s.chao1.estimate.toFixed(1)} (s.e. ${s.chao1.se.toFixed(1)}, 95% ${s.chao1.low.toFixed(1)}–${s.chao1.high.toFixed(1)}; ${s.chao1.variant})`
+      : 'Chao1 richness –',
+    ...s.rarefaction.map((r) => (r.expected === null ? `E(S_${r.n}) – (the sum is below ${r.n})` : `E(S_${r.n}) ${r.expected.toFixed(2)} (s.e. ${(r.se as number).toFixed(2)})`)),
+  ];
+  const c = s.concentration;
+  if (c) {
+    const unit = c.unit === 'grains/cm3' ? 'grains/cm³' : 'grains/g';
+    lines.push(
+      c.value === null
+        ? `concentration –: no marker counted yet (${s.markers} markers)`
+        : `concentration ${Math.round(c.value)} ${unit} (±${(100 * (c.relativeError ?? 0)).toFixed(1)}%, 95% ${Math.round(c.low ?? 0)}–${Math.round(c.high ?? 0)}) from ${s.markers} markers${c.influx === null ? '' : ` · influx ${Math.round(c.influx)} grains/cm²/yr`}`,
+    );
+  }
+  lines.push(
+    '',
+    `${fit('taxon', 22)} ${fit('group', 14)} ${right('count', 6)} ${right('%', 6)}  ${fit('95% Wilson', 12)} ${fit('exact', 12)} simultaneous`,
+    ...s.taxa
       .filter((r) => r.count > 0)
-      .map((r) => `${fit(r.taxon, 22)} ${fit(r.group, 14)} ${right(String(r.count), 6)} ${right(pct(r.percent), 6)}  ${ci(r.ciLow, r.ciHigh)}${r.inSum ? '' : ' *'}`),
+      .map(
+        (r) =>
+          `${fit(r.taxon, 22)} ${fit(r.group, 14)} ${right(String(r.count), 6)} ${right(pct(r.percent), 6)}  ${fit(ci(r.ciLow, r.ciHigh), 12)} ${fit(ci(r.exactLow, r.exactHigh), 12)} ${ci(r.simultaneousLow, r.simultaneousHigh)}${r.inSum ? '' : ' *'}`,
+      ),
     '',
     '* outside the pollen sum: percent of the sum plus its own group',
-  ];
-  process.stdout.write(`${lines.join('\n')}\n`);
+  );
+  return lines;
+}
+
+export function summaryCommand(args: string[]): number {
+  const { values, positionals } = parseFlags('summary', args, OPTIONS);
+  if (positionals.length !== 1) throw new UsageError('exine summary: give one session FILE (see exine summary --help)');
+  const rarefyAt = (values.rarefy ?? []).map((v) => positiveInteger('summary', 'rarefy', v) as number);
+  const { state, warnings } = readLevel(resolve(positionals[0] as string));
+  for (const w of warnings) process.stderr.write(`exine: ${w}\n`);
+  const summary = levelSummary(state, rarefyAt);
+  process.stdout.write(values.json ? `${JSON.stringify(summary, null, 2)}\n` : `${textReport(summary).join('\n')}\n`);
   return 0;
 }

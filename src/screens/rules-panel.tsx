@@ -1,0 +1,69 @@
+import { Box, Text } from 'ink';
+import type { RuleReport, RuleStatus } from '../rules/evaluate-rules.js';
+import type { Concentration } from '../stats/concentration.js';
+import { compact, ruleValue } from '../text/numbers.js';
+import { fit, right } from '../text/cells.js';
+import type { Theme } from './theme.js';
+
+/** A lone target-sum rule is already the sum panel; the rules panel shows anything more. */
+export function showsRulesPanel(report: RuleReport): boolean {
+  return report.rules.length > 1 || report.rules.some((r) => r.rule !== 'target') || report.minSum !== null;
+}
+
+export function rulesPanelHeight(report: RuleReport, conc: Concentration | null): number {
+  return (showsRulesPanel(report) ? 1 + report.rules.length : 0) + (conc ? 1 : 0);
+}
+
+/** "met", "+120" grains still needed, "?" when no estimate can be made yet, "never" when out of reach. */
+function need(r: RuleStatus): string {
+  if (r.met) return 'met';
+  if (r.grainsNeeded === null) return r.note?.startsWith('unreachable') ? 'never' : '?';
+  return `+${compact(r.grainsNeeded)}`;
+}
+
+const SHORT: Readonly<Record<RuleStatus['rule'], string>> = {
+  target: 'sum',
+  precision: '±',
+  coverage: 'cover',
+  plateau: 'no new',
+  markers: 'markers',
+  'conc-error': 'c.err',
+};
+
+/** "cover .987/.98   met": what, now against the goal, and what it still needs, right-aligned. */
+export function ruleLine(r: RuleStatus, width: number): string {
+  const label = r.rule === 'precision' ? r.label.replace(/ pts ?/, ' ') : SHORT[r.rule];
+  const head = `${label} ${ruleValue(r.rule, r.value)}/${ruleValue(r.rule, r.target)}`;
+  const tail = need(r);
+  return head.length + 1 + tail.length <= width ? `${head}${right(tail, width - head.length)}` : fit(`${head} ${tail}`, width);
+}
+
+export function concentrationLine(c: Concentration): string {
+  const unit = c.unit === 'grains/cm3' ? '/cm³' : '/g';
+  if (c.value === null) return `conc. – (no marker yet)`;
+  return `conc ${compact(c.value)}${unit} ±${Math.round(100 * (c.relativeError ?? 0))}%`;
+}
+
+export function RulesPanel({ report, conc, theme, width }: { report: RuleReport; conc: Concentration | null; theme: Theme; width: number }) {
+  return (
+    <Box flexDirection="column" width={width}>
+      {showsRulesPanel(report) ? (
+        <>
+          <Text bold>{fit(`Stop if ${report.mode === 'all' ? 'all' : 'any'}${report.minSum ? ` · sum≥${report.minSum}` : ''}`, width)}</Text>
+          {report.rules.map((r) => (
+            <Text key={r.rule} color={r.met ? theme.ok : undefined}>
+              {fit(ruleLine(r, width), width)}
+            </Text>
+          ))}
+        </>
+      ) : null}
+      {conc ? <Text>{fit(concentrationLine(conc), width)}</Text> : null}
+    </Box>
+  );
+}
+
+/** The stop signal in words, across the screen: the count can stop; the analyst decides. */
+export function stopBanner(sumAtMet: number | null): string {
+  const at = sumAtMet === null ? '' : ` at pollen sum ${sumAtMet}`;
+  return `STOP RULES MET${at} · you may stop: Ctrl-F finishes, or count on`;
+}
