@@ -8,7 +8,11 @@ export function parseFlags<O extends Options>(command: string, args: string[], o
   try {
     return parseArgs({ args, options, allowPositionals: true, strict: true });
   } catch (error) {
-    const message = (error as Error).message.replace(/\. To specify a positional argument.*$/s, '').replace(/^Unknown option/, 'unknown option');
+    // node's messages run over several lines; the first says what is wrong.
+    const message = ((error as Error).message.split('\n')[0] ?? '')
+      .replace(/\. To specify a positional argument.*$/s, '')
+      .replace(/^Unknown option/, 'unknown option')
+      .replace(/argument is ambiguous\.?$/, 'needs a value (a value starting with "-" is written --flag=-1)');
     throw new UsageError(`exine ${command}: ${message.charAt(0).toLowerCase()}${message.slice(1)} (see exine ${command} --help)`);
   }
 }

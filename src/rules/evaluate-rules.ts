@@ -83,7 +83,7 @@ function concError(rules: RuleSet, stats: LevelStats, spike: Spike | null): Rule
   const needed = grainsToRelativeError(sum, stats.markers, spike, rules.concError);
   if (needed === Number.POSITIVE_INFINITY) {
     const floor = Math.sqrt((spike.perTabletSd ?? 0) ** 2 * spike.tablets) / markersAdded(spike);
-    return status('conc-error', label, value, rules.concError, false, null, `unreachable: the tablets' own spread is ${trim(100 * floor)}%`);
+    return status('conc-error', label, value, rules.concError, false, null, `unreachable: the tablets' own spread is ${(100 * floor).toFixed(1)}%`);
   }
   return status('conc-error', label, value, rules.concError, met, needed, 'unknown until a marker is counted');
 }
