@@ -19,7 +19,7 @@ export function describeEvent(event: SessionEvent): string {
     case 'rules':
       return `rules now: ${describeRules(normalRules(event.rules))}${event.spike ? ' (spike data recorded)' : ''}`;
     case 'rules-met':
-      return `STOP RULES MET at pollen sum ${event.sum}`;
+      return `stop rules met (sum ${event.sum})`;
     case 'rules-unmet':
       return `stop rules no longer met (sum ${event.sum})`;
     case 'repair':
