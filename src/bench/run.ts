@@ -1,6 +1,8 @@
 // npm run bench: speed measured as ratios against baselines taken in the same run, on the same disk.
 import { cpus } from 'node:os';
 import { benchFirstFrame } from './first-frame.js';
+import { benchOptionalStopping } from './optional-stopping.js';
+import { benchStatsRecompute } from './stats-recompute.js';
 import { benchResume } from './resume.js';
 import { benchTallyPath } from './tally-path.js';
 
@@ -9,3 +11,5 @@ process.stdout.write(`exine benchmark · node ${process.version} · ${cpus()[0]?
 out(benchTallyPath());
 out(benchResume());
 out(await benchFirstFrame());
+out(benchStatsRecompute());
+out(benchOptionalStopping(Number(process.env.EXINE_SIM_RUNS ?? 2000)));

@@ -46,3 +46,16 @@ export function keyLabel(key: KeyName): string {
       return key;
   }
 }
+
+const sumTaxa = new WeakMap<Keymap, ReadonlySet<string>>();
+
+/** Whether a taxon's grains count in the pollen sum; a taxon the keymap does not list is "other". */
+export function inPollenSum(keymap: Keymap, taxon: string): boolean {
+  let set = sumTaxa.get(keymap);
+  if (!set) {
+    set = new Set(Object.values(keymap.keys).filter((b) => keymap.sum.includes(b.group)).map((b) => b.taxon));
+    sumTaxa.set(keymap, set);
+  }
+  if (set.has(taxon)) return true;
+  return keymap.sum.includes('other') && !Object.values(keymap.keys).some((b) => b.taxon === taxon);
+}

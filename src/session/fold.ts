@@ -1,4 +1,4 @@
-import type { Keymap } from '../keymap/keymap.js';
+import { inPollenSum, type Keymap } from '../keymap/keymap.js';
 import { normalRules } from '../rules/rule-set.js';
 import type { OpenEvent, SessionEvent } from './events.js';
 import { RECENT_EVENTS, type GrainStack, type LevelState } from './level-state.js';
@@ -18,6 +18,7 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     counts: {},
     grains: 0,
     firstSeen: {},
+    sinceNewType: 0,
     stack: null,
     undos: 0,
     recent: [open],
@@ -75,6 +76,15 @@ function firstOf(stack: GrainStack | null, taxon: string): number | undefined {
   return first;
 }
 
+/** The plateau worked out from the stack: after an undo, when the newest type may have gone. */
+function plateauOf(d: Draft): number {
+  let newest = 0;
+  for (const [taxon, seq] of Object.entries(d.firstSeen)) if (seq > newest && inPollenSum(d.keymap, taxon)) newest = seq;
+  let since = 0;
+  for (let s = d.stack; s && s.seq > newest; s = s.below) if (inPollenSum(d.keymap, s.taxon)) since++;
+  return since;
+}
+
 function step(d: Draft, event: SessionEvent): void {
   d.lastSeq = event.seq;
   d.lastAt = event.at;
@@ -88,6 +98,7 @@ function step(d: Draft, event: SessionEvent): void {
       return;
     case 'grain':
       d.counts[event.taxon] = (d.counts[event.taxon] ?? 0) + 1;
+      if (inPollenSum(d.keymap, event.taxon)) d.sinceNewType = d.firstSeen[event.taxon] === undefined ? 0 : d.sinceNewType + 1;
       d.firstSeen[event.taxon] ??= event.seq;
       d.grains++;
       d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, below: d.stack };
@@ -111,6 +122,7 @@ function step(d: Draft, event: SessionEvent): void {
       d.grains--;
       d.stack = stack;
       d.undos++;
+      d.sinceNewType = plateauOf(d);
       return;
     }
     case 'traverse':

@@ -33,6 +33,8 @@ export interface LevelState {
   readonly grains: number;
   /** seq of the first still-counted grain of each counted taxon: when each type entered the count. */
   readonly firstSeen: Readonly<Record<string, number>>;
+  /** Grains of the pollen sum counted since the last type new to the sum (the plateau). */
+  readonly sinceNewType: number;
   readonly stack: GrainStack | null;
   readonly undos: number;
   /** The last few events, oldest first. */

@@ -19,20 +19,9 @@ export interface LevelStats {
   readonly concentration: Concentration | null;
 }
 
-/** The seq of the grain that brought the newest type into the sum, or 0. */
-function lastNewTypeSeq(state: LevelState, inSum: (taxon: string) => boolean): number {
-  let last = 0;
-  for (const [taxon, seq] of Object.entries(state.firstSeen)) if (inSum(taxon) && seq > last) last = seq;
-  return last;
-}
-
 export function levelStats(state: LevelState): LevelStats {
   const table = levelTable(state);
-  const sumTaxa = new Set(table.rows.filter((r) => r.inSum).map((r) => r.taxon));
   const freq = frequencies(table.rows.filter((r) => r.inSum).map((r) => r.count));
-  const last = lastNewTypeSeq(state, (t) => sumTaxa.has(t));
-  let sinceNewType = 0;
-  for (let s = state.stack; s && s.seq > last; s = s.below) if (sumTaxa.has(s.taxon)) sinceNewType++;
   const markers = table.groupTotals.markers;
   return {
     table,
@@ -40,7 +29,7 @@ export function levelStats(state: LevelState): LevelStats {
     coverage: chaoJostCoverage(freq),
     goodTuring: goodTuringCoverage(freq),
     chao1: chao1(freq),
-    sinceNewType,
+    sinceNewType: state.sinceNewType,
     markers,
     concentration: state.spike ? concentration(table.pollenSum, markers, state.spike) : null,
   };

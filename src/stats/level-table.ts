@@ -1,4 +1,5 @@
 import { GROUPS, groupRank, type Group } from '../keymap/groups.js';
+import type { Keymap } from '../keymap/keymap.js';
 import type { LevelState } from '../session/level-state.js';
 import { wilsonInterval } from './wilson.js';
 
@@ -25,6 +26,28 @@ export interface LevelTable {
   readonly grains: number;
 }
 
+interface Slot {
+  readonly key: string | null;
+  readonly taxon: string;
+  readonly group: Group;
+  readonly inSum: boolean;
+}
+
+// The row order depends on the keymap alone, and the screen asks after every grain: work it out once per keymap.
+const layouts = new WeakMap<Keymap, { slots: readonly Slot[]; known: ReadonlySet<string> }>();
+
+function layoutOf(keymap: Keymap) {
+  let layout = layouts.get(keymap);
+  if (!layout) {
+    const slots = Object.entries(keymap.keys).map(([key, b]) => ({ key, taxon: b.taxon, group: b.group, inSum: keymap.sum.includes(b.group) }));
+    // Stable order for every view: by group, then as the keymap lists them (sort is stable).
+    slots.sort((a, b) => groupRank(a.group) - groupRank(b.group));
+    layout = { slots, known: new Set(slots.map((s) => s.taxon)) };
+    layouts.set(keymap, layout);
+  }
+  return layout;
+}
+
 /**
  * Counts, percentages and intervals of one level. Taxa in the pollen sum are a
  * percentage of the sum; taxa of groups outside it (spores, aquatics …) a
@@ -32,27 +55,24 @@ export interface LevelTable {
  */
 export function levelTable(state: LevelState): LevelTable {
   const { keymap, counts } = state;
-  const listed: { key: string | null; taxon: string; group: Group }[] = Object.entries(keymap.keys).map(
-    ([key, b]) => ({ key, taxon: b.taxon, group: b.group }),
-  );
-  const known = new Set(listed.map((t) => t.taxon));
-  for (const taxon of Object.keys(counts)) if (!known.has(taxon)) listed.push({ key: null, taxon, group: 'other' });
-
+  const layout = layoutOf(keymap);
+  let slots = layout.slots;
+  const unknown = Object.keys(counts).filter((t) => !layout.known.has(t));
+  if (unknown.length) {
+    const extra = unknown.map((taxon): Slot => ({ key: null, taxon, group: 'other', inSum: keymap.sum.includes('other') }));
+    slots = [...slots, ...extra].sort((a, b) => groupRank(a.group) - groupRank(b.group));
+  }
   const groupTotals = Object.fromEntries(GROUPS.map((g) => [g, 0])) as Record<Group, number>;
-  for (const t of listed) groupTotals[t.group] += counts[t.taxon] ?? 0;
-  const sumGroups = keymap.sum;
-  const pollenSum = sumGroups.reduce((acc, g) => acc + groupTotals[g], 0);
+  for (const s of slots) groupTotals[s.group] += counts[s.taxon] ?? 0;
+  let pollenSum = 0;
+  for (const g of keymap.sum) pollenSum += groupTotals[g];
 
-  const rows = listed.map((t): TaxonRow => {
-    const count = counts[t.taxon] ?? 0;
-    const inSum = sumGroups.includes(t.group);
-    const basis = inSum ? pollenSum : pollenSum + groupTotals[t.group];
-    if (basis === 0) return { ...t, inSum, count, basis, percent: null, ciLow: null, ciHigh: null };
+  const rows = slots.map((s): TaxonRow => {
+    const count = counts[s.taxon] ?? 0;
+    const basis = s.inSum ? pollenSum : pollenSum + groupTotals[s.group];
+    if (basis === 0) return { key: s.key, taxon: s.taxon, group: s.group, inSum: s.inSum, count, basis, percent: null, ciLow: null, ciHigh: null };
     const ci = wilsonInterval(count, basis);
-    return { ...t, inSum, count, basis, percent: (100 * count) / basis, ciLow: 100 * ci.low, ciHigh: 100 * ci.high };
+    return { key: s.key, taxon: s.taxon, group: s.group, inSum: s.inSum, count, basis, percent: (100 * count) / basis, ciLow: 100 * ci.low, ciHigh: 100 * ci.high };
   });
-  // Stable order for every view: by group, then as the keymap lists them.
-  const order = new Map(rows.map((r, i) => [r, i]));
-  rows.sort((a, b) => groupRank(a.group) - groupRank(b.group) || (order.get(a) as number) - (order.get(b) as number));
-  return { rows, pollenSum, groupTotals, sumGroups, grains: state.grains };
+  return { rows, pollenSum, groupTotals, sumGroups: keymap.sum, grains: state.grains };
 }
