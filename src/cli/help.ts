@@ -6,7 +6,7 @@ Usage
 Commands
   count FILE     count a level: creates FILE, or resumes it
   demo           count a copy of the demo level in a temporary folder
-  summary FILE   counts, percentages and intervals of a level
+  summary FILE   statistics and stop-rule state of a level
   export FILE…   levels as CSV (long or wide)
   verify FILE    check a session file's integrity chain
   keys PATH      check a keymap and show its layout
@@ -30,31 +30,64 @@ Options
   --core C            core label
   --slide S           slide label
   --analyst A         who counts
-  --target N          target pollen sum (default 500; about 300 where pollen is sparse)
+  --quiet             no terminal bells
   -h, --help          this help
+
+Stop rules (recorded in FILE; on resume a flag changes only its own rule,
+and "off" drops it). With no rule flag a new level gets --target 500.
+  --target N          pollen sum to reach (common practice 500; about 300
+                      where pollen is sparse)
+  --precision H       every qualifying taxon's 95% interval within ±H
+                      percentage points; qualifying taxa are those at or above
+  --precision-share P   P percent of the sum (default 5), or
+  --precision-taxa A,B  the taxa named
+  --coverage C        sample coverage (Chao & Jost 2012) at least C, e.g. 0.99;
+                      judged from a pollen sum of 100 on
+  --plateau K         no new type in the last K grains of the sum
+  --markers M         at least M exotic marker grains counted
+  --conc-error R      concentration relative error at most R (0.1 or 10%)
+  --rule-mode all|any the set is met when all rules are (default) or any one
+  --min-sum N         and never below a pollen sum of N
+
+Exotic marker spike (for concentration; recorded in FILE)
+  --tablets T         marker tablets added to the sample
+  --per-tablet S      the batch's mean marker spores per tablet
+  --per-tablet-sd SD  the batch's standard deviation per tablet
+  --volume V | --mass G   sample volume in cm³, or mass in g
+  --accumulation-rate R   sediment accumulation in cm/yr, for influx
 
 Keys
   taxon keys count one grain each; Backspace undoes the last grain; Tab starts
   the next traverse (the keymap may move these); Ctrl-F then y marks the level
   finished and quits; Ctrl-C quits (every grain is on disk already).
+  When the stop rules are met the screen says STOP RULES MET and rings three
+  bells; counting goes on until you finish.
 
 Examples
   exine count km1-112cm.jsonl --core KM-1 --depth 112 --slide KM1-112-A
-  exine count km1-112cm.jsonl          (resume the next day)`,
+  exine count km1-112cm.jsonl          (resume the next day)
+  exine count km1-136cm.jsonl --precision 3 --precision-share 5 --min-sum 300 \\
+      --tablets 1 --per-tablet 12500 --per-tablet-sd 420 --volume 1
+  exine count km1-112cm.jsonl --target 300   (lower the target on resume)`,
   demo: `Usage
   exine demo
 
 Copies the half-counted demo level (demo-sessions/) into a temporary folder
 and opens it for counting. The bundled demo files are never changed.`,
   summary: `Usage
-  exine summary FILE [--json]
+  exine summary FILE [--json] [--rarefy N …]
 
-Prints the level's counts, percentages of the pollen sum and 95% Wilson
-intervals. Reads the file without changing it.
+Prints the level's statistics and the state of its stop rules: counts,
+percentages with 95% intervals (Wilson, Clopper–Pearson exact, Sison–Glaz
+simultaneous), sample coverage, Chao1 richness, rarefaction, and marker
+concentration with influx when spike data is recorded. Reads the file without
+changing it.
 
 Options
-  --json      one JSON object instead of a table
-  -h, --help  this help`,
+  --json       one JSON object instead of text
+  --rarefy N   expected types among N grains of the sum (Hurlbert 1971), with
+               its standard error; give it more than once for several N
+  -h, --help   this help`,
   export: `Usage
   exine export FILE… [--format long|wide] [--out PATH] [--force]
 

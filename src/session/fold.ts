@@ -76,10 +76,16 @@ function firstOf(stack: GrainStack | null, taxon: string): number | undefined {
   return first;
 }
 
-/** The plateau worked out from the stack: after an undo, when the newest type may have gone. */
-function plateauOf(d: Draft): number {
+/** seq of the grain that brought the newest type into the sum, or 0. */
+function newestTypeSeq(d: Draft): number {
   let newest = 0;
   for (const [taxon, seq] of Object.entries(d.firstSeen)) if (seq > newest && inPollenSum(d.keymap, taxon)) newest = seq;
+  return newest;
+}
+
+/** The plateau worked out from the stack, for an undo that moved a type's first grain. */
+function plateauOf(d: Draft): number {
+  const newest = newestTypeSeq(d);
   let since = 0;
   for (let s = d.stack; s && s.seq > newest; s = s.below) if (inPollenSum(d.keymap, s.taxon)) since++;
   return since;
@@ -110,6 +116,7 @@ function step(d: Draft, event: SessionEvent): void {
         d.ignored.push(event.seq);
         return;
       }
+      const wasFirst = d.firstSeen[taxon] === event.of;
       // A fully undone taxon reads as never counted.
       if (d.counts[taxon] === 1) {
         delete d.counts[taxon];
@@ -122,7 +129,11 @@ function step(d: Draft, event: SessionEvent): void {
       d.grains--;
       d.stack = stack;
       d.undos++;
-      d.sinceNewType = plateauOf(d);
+      // Only undoing a type's first grain can move the newest type; that rare case walks the stack.
+      if (inPollenSum(d.keymap, taxon)) {
+        if (wasFirst) d.sinceNewType = plateauOf(d);
+        else if (event.of > newestTypeSeq(d)) d.sinceNewType--;
+      }
       return;
     }
     case 'traverse':

@@ -114,4 +114,15 @@ describe('exine summary --json on data laid out as the published examples', () =
     expect(plain[0]).toHaveProperty('concentration', '');
     expect(Object.keys(plain[0]!)).toEqual(Object.keys(t01));
   });
+
+  it('a file written in format 1 (target alone, no spike field) reads as format 2', () => {
+    const open = { ...openPayload(keymapOf(2)), format: 1, rules: { targetSum: 300 } } as Record<string, unknown>;
+    delete open.spike;
+    const dir = levelFile(sessionText([open as never, ...grainsFor([3, 4])]));
+    const s = JSON.parse(runExine(['summary', 'level.jsonl', '--json'], dir).stdout);
+    expect(s.ruleSet).toBe('pollen sum 300');
+    expect(s.rules).toEqual([{ rule: 'target', label: 'pollen sum', value: 7, target: 300, met: false, grainsNeeded: 293, note: null }]);
+    expect(s.spike).toBeNull();
+    expect(runExine(['verify', 'level.jsonl'], dir).code).toBe(0);
+  });
 });

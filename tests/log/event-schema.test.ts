@@ -42,3 +42,30 @@ describe('event validation', () => {
     expect(r.ok && (r.event as unknown as { reason: string }).reason).toBe('slipped');
   });
 });
+
+describe('rules and spike data in the file', () => {
+  const stamp = { seq: 4, at: '2026-02-20T10:00:00.000Z', prev: 'x' };
+  it('a format-1 rule set (the target alone) is still valid', () => {
+    expect(parseEventObject({ ...stamp, type: 'rules', rules: { targetSum: 300 } }).ok).toBe(true);
+  });
+
+  it('a spike gives a volume or a mass, not both and not neither', () => {
+    const spike = { tablets: 2, perTablet: 20000, perTabletSd: 800, volume: 1, mass: null, accumulationRate: null };
+    expect(parseEventObject({ ...stamp, type: 'rules', rules: { targetSum: 300 }, spike }).ok).toBe(true);
+    expect(parseEventObject({ ...stamp, type: 'rules', rules: { targetSum: 300 }, spike: { ...spike, mass: 2 } }).ok).toBe(false);
+    expect(parseEventObject({ ...stamp, type: 'rules', rules: { targetSum: 300 }, spike: { ...spike, volume: null } }).ok).toBe(false);
+  });
+
+  it('rejects a rule value no flag could have written', () => {
+    for (const rules of [{ coverage: 1.5 }, { mode: 'some' }, { plateau: 0 }, { precision: { halfWidth: -1 } }]) {
+      expect(parseEventObject({ ...stamp, type: 'rules', rules }).ok, JSON.stringify(rules)).toBe(false);
+    }
+  });
+
+  it('reads rules-met and rules-unmet events', () => {
+    expect(parseEventObject({ ...stamp, type: 'rules-met', sum: 500, grains: 540, met: ['target'] }).ok).toBe(true);
+    expect(parseEventObject({ ...stamp, type: 'rules-unmet', sum: 499, grains: 539 }).ok).toBe(true);
+    expect(parseEventObject({ ...stamp, type: 'rules-met', sum: -1, grains: 540, met: [] }).ok).toBe(false);
+  });
+});
+

@@ -120,3 +120,42 @@ describe('the fold, replayed or applied one event at a time', () => {
     );
   });
 });
+
+describe('when each type entered the count, and the plateau', () => {
+  it('property: first-seen grains and grains since the last new type of the sum match a plain model (fast-check)', () => {
+    // Sphagnum (spores) and Lycopodium (markers) are outside the sum: they never start or extend a plateau.
+    const payload = fc.oneof(
+      { weight: 4, arbitrary: fc.constantFrom('Alnus', 'Betula', 'Corylus', 'Poaceae', 'Sphagnum', 'Lycopodium').map((t) => grain(t)) },
+      { weight: 1, arbitrary: fc.integer({ min: 2, max: 80 }).map((of): EventPayload => ({ type: 'undo', of })) },
+    );
+    const inSum = new Set(['Alnus', 'Betula', 'Corylus', 'Poaceae']);
+    fc.assert(
+      fc.property(fc.array(payload, { maxLength: 80 }), (ps) => {
+        const events = ps.map((p, i) => ({ ...p, seq: i + 2, at: at(i + 1) }) as SessionEvent);
+        const state = foldEvents(open, TINY_KEYMAP, events);
+        // Model: the grains still counted, oldest first.
+        const counted: { seq: number; taxon: string }[] = [];
+        for (const e of events) {
+          if (e.type === 'grain') counted.push({ seq: e.seq, taxon: e.taxon });
+          if (e.type === 'undo') {
+            const i = counted.findIndex((g) => g.seq === e.of);
+            if (i >= 0) counted.splice(i, 1);
+          }
+        }
+        const first: Record<string, number> = {};
+        for (const g of counted) first[g.taxon] ??= g.seq;
+        expect(state.firstSeen).toEqual(first);
+        const sumGrains = counted.filter((g) => inSum.has(g.taxon));
+        const seen = new Set<string>();
+        let since = 0;
+        for (const g of sumGrains) {
+          since = seen.has(g.taxon) ? since + 1 : 0;
+          seen.add(g.taxon);
+        }
+        expect(state.sinceNewType).toBe(since);
+      }),
+      { numRuns: 500 },
+    );
+  });
+});
+
