@@ -31,8 +31,11 @@ const SHORT: Readonly<Record<RuleStatus['rule'], string>> = {
 };
 
 /** "cover .987/.98   met": what, now against the goal, and what it still needs, right-aligned. */
-export function ruleLine(r: RuleStatus, width: number): string {
-  const label = r.rule === 'precision' ? r.label.replace(/ pts ?/, ' ') : SHORT[r.rule];
+export function ruleLine(r: RuleStatus, room: number): string {
+  // Wide panels get the full words, but no wider than a glance takes in.
+  const width = Math.min(room, 34);
+  const wide = width >= 30;
+  const label = wide ? r.label : r.rule === 'precision' ? r.label.replace(/ pts ?/, ' ') : SHORT[r.rule];
   const head = `${label} ${ruleValue(r.rule, r.value)}/${ruleValue(r.rule, r.target)}`;
   const tail = need(r);
   return head.length + 1 + tail.length <= width ? `${head}${right(tail, width - head.length)}` : fit(`${head} ${tail}`, width);
