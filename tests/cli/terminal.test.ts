@@ -36,6 +36,34 @@ describe('exine count in a terminal', () => {
     expect(await again.exited()).toBe(0);
   });
 
+  it('records stop rules and spike data from the flags, shows them converging, and changes them on resume', async () => {
+    const dir = tempDir();
+    const flags = ['--precision', '40', '--precision-share', '30', '--markers', '2', '--tablets', '1', '--per-tablet', '10000', '--volume', '0.5'];
+    const t = startInPty(['count', 'l.jsonl', ...flags], dir);
+    await t.ready(/Stop if all/);
+    t.type('qqqbbb.');
+    await t.waitFor(/markers 1\/2\s+\+6/);
+    t.type('.');
+    await t.waitFor(/STOP RULES MET at pollen sum 6/);
+    t.type('\x03');
+    expect(await t.exited()).toBe(0);
+    const events = scanLog(readFileSync(join(dir, 'l.jsonl'))).events;
+    expect(events[0]).toMatchObject({
+      format: 2,
+      rules: { targetSum: null, precision: { halfWidth: 40, share: 30, taxa: null }, markers: 2, mode: 'all' },
+      spike: { tablets: 1, perTablet: 10000, perTabletSd: null, volume: 0.5, mass: null, accumulationRate: null },
+    });
+    expect(events.find((e) => e.type === 'rules-met')).toMatchObject({ sum: 6, grains: 8 });
+
+    const again = startInPty(['count', 'l.jsonl', '--markers', '5'], dir);
+    await again.ready(/markers 2\/5/);
+    expect(again.output()).toMatch(/stop rules changed from/);
+    again.type('\x03');
+    expect(await again.exited()).toBe(0);
+    const tail = scanLog(readFileSync(join(dir, 'l.jsonl'))).events.slice(-4).map((e) => e.type);
+    expect(tail).toEqual(['sitting', 'rules', 'rules-unmet', 'close']);
+  });
+
   it('a second exine on the same file is refused while the first counts', async () => {
     const dir = tempDir();
     const first = startInPty(['count', 'l.jsonl'], dir);
