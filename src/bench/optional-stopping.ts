@@ -1,6 +1,7 @@
 import { evaluateRules } from '../rules/evaluate-rules.js';
 import { DEFAULT_TARGET_SUM, NO_RULES, type RuleSet } from '../rules/rule-set.js';
 import type { Keymap } from '../keymap/keymap.js';
+import { syntheticKeymap } from './synthetic-keymap.js';
 import type { OpenEvent, SessionEvent } from '../session/events.js';
 import { startFold } from '../session/fold.js';
 import { levelStats } from '../stats/level-stats.js';
@@ -19,12 +20,6 @@ const RULE_SETS: readonly { name: string; rules: RuleSet }[] = [
   { name: 'precision ±3 pts, taxa ≥ 5%', rules: { ...NO_RULES, precision: { halfWidth: 3, share: 5, taxa: null } } },
   { name: 'coverage 0.99', rules: { ...NO_RULES, coverage: 0.99 } },
 ];
-
-function keymapFor(n: number): Keymap {
-  const keys: Record<string, Keymap['keys'][string]> = {};
-  for (let i = 0; i < n; i++) keys[String.fromCodePoint(0x100 + i)] = { taxon: `T${i + 1}`, group: 'trees' };
-  return { name: 'simulation', keys, actions: { undo: 'backspace', traverse: 'tab', note: 'enter' }, sum: ['trees', 'shrubs', 'herbs'] };
-}
 
 interface Outcome {
   readonly grains: number;
@@ -61,7 +56,7 @@ function countOnce(rules: RuleSet, keymap: Keymap, random: () => number): Outcom
  * the reported intervals checked against the true shares.
  */
 export function benchOptionalStopping(runs = 2000): string[] {
-  const keymap = keymapFor(SHARES.length);
+  const keymap = syntheticKeymap(SHARES.length);
   const lines = [
     `(e) optional stopping: ${runs} simulated counts per rule from a known assemblage (shares ${MAJOR.join(', ')} and 20 types of 0.001), cap ${CAP} grains`,
     `    ${'rule'.padEnd(30)} ${'mean'.padStart(6)} ${'p90'.padStart(6)}  95% intervals containing the true share: mean of 9 taxa · worst taxon · all 9 at once`,

@@ -1,19 +1,11 @@
 import { NO_RULES, type RuleSet } from '../rules/rule-set.js';
-import type { Keymap } from '../keymap/keymap.js';
+import { syntheticKeymap } from './synthetic-keymap.js';
 import type { OpenEvent, SessionEvent } from '../session/events.js';
 import { applyEvent, startFold } from '../session/fold.js';
 import { levelReport } from '../session/rules-signal.js';
 import { levelSummary } from '../export/level-summary.js';
 import { seededRandom } from '../demo/seeded-random.js';
 import { fmt, ms, ratio, summarise } from './stats.js';
-
-/** A keymap of `n` taxa in the sum plus a marker, keyed by code points from U+0100 on. */
-function wideKeymap(n: number): Keymap {
-  const keys: Record<string, Keymap['keys'][string]> = {};
-  for (let i = 0; i < n; i++) keys[String.fromCodePoint(0x100 + i)] = { taxon: `Taxon ${i + 1}`, group: i % 3 === 0 ? 'herbs' : 'trees' };
-  keys['.'] = { taxon: 'Marker', group: 'markers' };
-  return { name: 'bench', keys, actions: { undo: 'backspace', traverse: 'tab', note: 'enter' }, sum: ['trees', 'shrubs', 'herbs'] };
-}
 
 const RULES: RuleSet = { ...NO_RULES, targetSum: 500, precision: { halfWidth: 3, share: 5, taxa: null }, coverage: 0.99, plateau: 300, markers: 100, concError: 0.1 };
 
@@ -23,7 +15,7 @@ const RULES: RuleSet = { ...NO_RULES, targetSum: 500, precision: { halfWidth: 3,
  * beside the plain count update (the fold of the grain) measured in the same run.
  */
 export function benchStatsRecompute(grains = 5000, types = 150): string[] {
-  const keymap = wideKeymap(types);
+  const keymap = syntheticKeymap(types, (i) => (i % 3 === 0 ? 'herbs' : 'trees'), true);
   const at = new Date().toISOString();
   const open = {
     type: 'open', seq: 1, at, format: 2, session: 'b'.repeat(32), level: 'bench', depth: 1, site: null, core: null, slide: null, analyst: null,
