@@ -6,6 +6,7 @@ Usage
 Commands
   count FILE     count a level: creates FILE, or resumes it
   demo           count a copy of the demo level in a temporary folder
+  audit FILE     review a level traverse by traverse; correct it (--plain: a report)
   summary FILE   statistics and stop-rule state of a level
   export FILE…   levels as CSV (long or wide)
   verify FILE    check a session file's integrity chain
@@ -74,6 +75,27 @@ Examples
 
 Copies the half-counted demo level (demo-sessions/) into a temporary folder
 and opens it for counting. The bundled demo files are never changed.`,
+  audit: `Usage
+  exine audit FILE [--plain] [--double-press MS] [--gap MIN]
+
+Reviews how a level was counted: a table of traverses (start, time, grains,
+types, grains per minute, new types, undos, voids, notes), each traverse's
+grains by taxon and its events, the sittings and pauses, a χ² test of whether
+the types are spread alike across traverses, presses to review, corrections,
+and the file's integrity. Reads the file without a lock: it works while the
+level is being counted elsewhere, and follows it as it grows.
+
+Keys: ↑ ↓ select · Tab switches between traverses and their grains ·
+v voids the selected traverse or grain (asks for a reason) · r restores it ·
+f shows sittings, flags and corrections · q quits. A void or restore is a new
+event: the grains stay in the file. Corrections wait while the level is open
+in exine count.
+
+Options
+  --plain            print the audit as a text report and exit
+  --double-press MS  flag the same key twice within MS ms (default 120)
+  --gap MIN          a pause is longer than MIN minutes (default 5)
+  -h, --help         this help`,
   summary: `Usage
   exine summary FILE [--json] [--rarefy N …]
 

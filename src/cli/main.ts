@@ -7,6 +7,7 @@ type Command = (args: string[]) => number | Promise<number>;
 const COMMANDS: Readonly<Record<string, () => Promise<Command>>> = {
   count: async () => (await import('./commands/count.js')).countCommand,
   demo: async () => (await import('./commands/demo.js')).demoCommand,
+  audit: async () => (await import('./commands/audit.js')).auditCommand,
   summary: async () => (await import('./commands/summary.js')).summaryCommand,
   export: async () => (await import('./commands/export.js')).exportCommand,
   verify: async () => (await import('./commands/verify.js')).verifyCommand,

@@ -9,6 +9,8 @@ export type KeyPress =
   | { readonly kind: 'finish' }
   | { readonly kind: 'up' }
   | { readonly kind: 'down' }
+  | { readonly kind: 'left' }
+  | { readonly kind: 'right' }
   | { readonly kind: 'ignored'; readonly what: string };
 
 /** The flags Ink passes beside the input string (a subset of its Key type). */
@@ -54,6 +56,8 @@ export function splitKeys(input: string, flags: InkKeyFlags): KeyPress[] {
     if (flags.escape) return [{ kind: 'escape' }];
     if (flags.upArrow) return [{ kind: 'up' }];
     if (flags.downArrow) return [{ kind: 'down' }];
+    if (flags.leftArrow) return [{ kind: 'left' }];
+    if (flags.rightArrow) return [{ kind: 'right' }];
     return [{ kind: 'ignored', what: 'special key' }];
   }
   if (flags.ctrl) return [{ kind: 'ignored', what: `Ctrl-${input}` }];

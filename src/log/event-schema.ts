@@ -85,6 +85,16 @@ const repair = z.object({
   cutBytes: z.number().int().nonnegative(),
   backup: text,
 });
+const voidEvent = z
+  .object({
+    ...stamp,
+    type: z.literal('void'),
+    grain: z.number().int().positive().nullable(),
+    traverse: z.number().int().positive().nullable(),
+    reason: text,
+  })
+  .refine((v) => (v.grain === null) !== (v.traverse === null), { message: 'a void names one grain or one traverse' });
+const restore = z.object({ ...stamp, type: z.literal('restore'), of: z.number().int().positive(), reason: text });
 const close = z.object({ ...stamp, type: z.literal('close') });
 const finish = z.object({ ...stamp, type: z.literal('finish') });
 
@@ -99,6 +109,8 @@ export const eventSchema = z.discriminatedUnion('type', [
   rulesMet,
   rulesUnmet,
   repair,
+  voidEvent,
+  restore,
   close,
   finish,
 ]);

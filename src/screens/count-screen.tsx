@@ -1,4 +1,5 @@
 import { Box, Text, useApp, useInput, useStdout } from 'ink';
+import { useTerminalSize } from './terminal-size.js';
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { splitKeys } from '../input/key-press.js';
 import { keyLabel } from '../keymap/keymap.js';
@@ -12,22 +13,6 @@ import { RecentEvents } from './recent-events.js';
 import { SumPanel, sumPanelHeight } from './sum-panel.js';
 import { themeFor } from './theme.js';
 import { TotalsTable, tableWidth, taxonWidthFor } from './totals-table.js';
-
-/** The terminal's size, following resizes (Ink re-draws on resize but does not re-render components). */
-function useTerminalSize(): { columns: number; rows: number } {
-  const { stdout } = useStdout();
-  // A terminal that reports no size (0 x 0) gets the smallest size the screen is made for.
-  const read = () => ({ columns: stdout.columns || 80, rows: stdout.rows || 24 });
-  const [size, setSize] = useState(read);
-  useEffect(() => {
-    const onResize = () => setSize(read());
-    stdout.on('resize', onResize);
-    return () => {
-      stdout.off('resize', onResize);
-    };
-  }, [stdout]);
-  return size;
-}
 
 function useNow(intervalMs: number): number {
   const [now, setNow] = useState(() => Date.now());

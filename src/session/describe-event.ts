@@ -22,6 +22,10 @@ export function describeEvent(event: SessionEvent): string {
       return `stop rules met (sum ${event.sum})`;
     case 'rules-unmet':
       return `stop rules no longer met (sum ${event.sum})`;
+    case 'void':
+      return event.grain !== null ? `void of #${event.grain}: ${event.reason}` : `void of traverse ${event.traverse}: ${event.reason}`;
+    case 'restore':
+      return `restore of void #${event.of}: ${event.reason}`;
     case 'repair':
       return `tail repaired (${event.cutBytes} bytes cut)`;
     case 'close':

@@ -107,6 +107,27 @@ export interface RepairPayload {
   readonly backup: string;
 }
 
+/**
+ * A correction made in the audit: one grain, or every grain of one traverse,
+ * no longer counts. The grains stay in the file; a restore undoes the void.
+ */
+export interface VoidPayload {
+  readonly type: 'void';
+  /** seq of the grain voided, or null when a whole traverse is. */
+  readonly grain: number | null;
+  /** The traverse voided, or null when one grain is. */
+  readonly traverse: number | null;
+  readonly reason: string;
+}
+
+/** A void taken back: its grains count again. */
+export interface RestorePayload {
+  readonly type: 'restore';
+  /** seq of the void event. */
+  readonly of: number;
+  readonly reason: string;
+}
+
 export interface ClosePayload {
   readonly type: 'close';
 }
@@ -126,6 +147,8 @@ export type EventPayload =
   | RulesMetPayload
   | RulesUnmetPayload
   | RepairPayload
+  | VoidPayload
+  | RestorePayload
   | ClosePayload
   | FinishPayload;
 

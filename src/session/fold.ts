@@ -1,7 +1,7 @@
 import { inPollenSum, type Keymap } from '../keymap/keymap.js';
 import { normalRules } from '../rules/rule-set.js';
 import type { OpenEvent, SessionEvent } from './events.js';
-import { RECENT_EVENTS, type GrainStack, type LevelState } from './level-state.js';
+import { RECENT_EVENTS, type CountedGrain, type GrainStack, type LevelState } from './level-state.js';
 
 export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
   return {
@@ -21,6 +21,7 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     sinceNewType: 0,
     stack: null,
     undos: 0,
+    voids: {},
     recent: [open],
     sitting: 0,
     sittingStartedAt: open.at,
@@ -91,11 +92,70 @@ function plateauOf(d: Draft): number {
   return since;
 }
 
+/** The stack as an array, newest first. */
+function stackArray(stack: GrainStack | null): CountedGrain[] {
+  const out: CountedGrain[] = [];
+  for (let s = stack; s; s = s.below) out.push({ seq: s.seq, taxon: s.taxon, traverse: s.traverse });
+  return out;
+}
+
+function stackOf(grains: readonly CountedGrain[]): GrainStack | null {
+  let stack: GrainStack | null = null;
+  for (let i = grains.length - 1; i >= 0; i--) stack = { ...(grains[i] as CountedGrain), below: stack };
+  return stack;
+}
+
+/**
+ * Counts, first appearances and the plateau worked out again from the grains
+ * still counted: after a void or a restore, which are rare and may touch any grain.
+ */
+function recount(d: Draft, grains: readonly CountedGrain[]): void {
+  d.stack = stackOf(grains);
+  d.counts = {};
+  d.firstSeen = {};
+  for (let i = grains.length - 1; i >= 0; i--) {
+    const g = grains[i] as CountedGrain;
+    d.counts[g.taxon] = (d.counts[g.taxon] ?? 0) + 1;
+    d.firstSeen[g.taxon] ??= g.seq;
+  }
+  d.grains = grains.length;
+  d.sinceNewType = plateauOf(d);
+}
+
+function voidGrains(d: Draft, event: SessionEvent & { type: 'void' }): void {
+  const all = stackArray(d.stack);
+  const hit = (g: CountedGrain) => (event.grain !== null ? g.seq === event.grain : g.traverse === event.traverse && g.seq < event.seq);
+  const taken = all.filter(hit);
+  if (taken.length === 0) {
+    d.ignored.push(event.seq);
+    return;
+  }
+  d.voids = { ...d.voids, [event.seq]: taken };
+  recount(d, all.filter((g) => !hit(g)));
+}
+
+function restoreGrains(d: Draft, event: SessionEvent & { type: 'restore' }): void {
+  const taken = d.voids[event.of];
+  if (!taken) {
+    d.ignored.push(event.seq);
+    return;
+  }
+  const { [event.of]: _restored, ...rest } = d.voids;
+  d.voids = rest;
+  recount(d, [...stackArray(d.stack), ...taken].sort((a, b) => b.seq - a.seq));
+}
+
 function step(d: Draft, event: SessionEvent): void {
   d.lastSeq = event.seq;
   d.lastAt = event.at;
   d.recent.push(event);
   if (d.recent.length > RECENT_EVENTS) d.recent.shift();
+  // A correction made in the audit is not a sitting: whether the last sitting closed stays as it was.
+  if (event.type === 'void' || event.type === 'restore') {
+    if (event.type === 'void') voidGrains(d, event);
+    else restoreGrains(d, event);
+    return;
+  }
   d.closed = false;
   switch (event.type) {
     case 'open':

@@ -37,6 +37,8 @@ export interface LevelState {
   readonly sinceNewType: number;
   readonly stack: GrainStack | null;
   readonly undos: number;
+  /** The grains each standing void took out, by the void's seq: a restore puts them back. */
+  readonly voids: Readonly<Record<number, readonly CountedGrain[]>>;
   /** The last few events, oldest first. */
   readonly recent: readonly SessionEvent[];
   readonly sitting: number;

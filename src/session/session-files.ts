@@ -10,7 +10,7 @@ import { SessionWriter, type WriterOptions } from '../log/session-writer.js';
 import { describeRules, sameRules, type RuleSet } from '../rules/rule-set.js';
 import type { Spike } from '../stats/concentration.js';
 import { rulesSignal } from './rules-signal.js';
-import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent } from './events.js';
+import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent, type RestorePayload, type SessionEvent, type VoidPayload } from './events.js';
 import { applyEvent, foldEvents, startFold, type Folding } from './fold.js';
 import type { LevelState } from './level-state.js';
 
@@ -170,4 +170,43 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
     lock.release();
     throw error;
   }
+}
+
+/**
+ * Record one correction made in the audit (a void or a restore), as a short
+ * transaction: take the lock, check the file, append, let go. Refused while the
+ * level is open for counting elsewhere, on a damaged file, or when the
+ * correction has nothing to act on; nothing is written then.
+ */
+export function correctLevel(path: string, payload: VoidPayload | RestorePayload, options: WriterOptions = {}): LevelState {
+  if (!payload.reason.trim()) throw new ExineError('a correction needs a reason: say why, in a few words');
+  const lock = SessionLock.acquire(path);
+  try {
+    const { scan, state } = scanAndFold(readBytes(path));
+    if (scan.corruption || !state) {
+      throw new ExineError(`${path}: ${scan.corruption?.message}; no correction was made (exine verify ${path} for details)`);
+    }
+    if (scan.tail) throw new ExineError(`${path}: ${scan.tail.message}; open it once with exine count to repair it, then correct`);
+    // Try it on the state first: a void of nothing counted, or a restore of no standing void, writes nothing.
+    const trial = applyEvent(state, { ...payload, seq: state.lastSeq + 1, at: state.lastAt } as SessionEvent);
+    if (trial.ignored.includes(state.lastSeq + 1)) throw new ExineError(`${path}: ${whyNot(state, payload)}; nothing was changed`);
+    const writer = SessionWriter.resume(path, scan.goodBytes, state.lastSeq, scan.lastHash, lock, options);
+    try {
+      let next = applyEvent(state, writer.append(payload));
+      const signal = rulesSignal(next);
+      if (signal) next = applyEvent(next, writer.append(signal));
+      return next;
+    } finally {
+      writer.close();
+    }
+  } catch (error) {
+    lock.release();
+    throw error;
+  }
+}
+
+function whyNot(state: LevelState, payload: VoidPayload | RestorePayload): string {
+  if (payload.type === 'restore') return `event #${payload.of} is not a void that still stands`;
+  if (payload.grain !== null) return `grain #${payload.grain} does not count now (it was undone, voided, or is not a grain)`;
+  return `traverse ${payload.traverse} has no grain that counts now`;
 }

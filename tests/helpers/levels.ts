@@ -94,3 +94,15 @@ export function stateOf(open: OpenPayload, payloads: readonly EventPayload[]): L
   const events = payloads.map((p, i) => ({ ...p, seq: i + 2, at: at(i + 1) }) as SessionEvent);
   return foldEvents({ ...open, seq: 1, at: at(0) } as OpenEvent, open.keymap, events);
 }
+
+/** Session lines with a time of its own for each event: [payload, ms after the start]. */
+export function timedSessionText(entries: readonly (readonly [EventPayload, number])[], start = Date.parse('2026-11-02T09:00:00.000Z')): string {
+  let prev = '';
+  return entries
+    .map(([p, ms], i) => {
+      const { line, hash } = encodeLine(p, { seq: i + 1, at: new Date(start + ms).toISOString() }, prev);
+      prev = hash;
+      return `${line}\n`;
+    })
+    .join('');
+}

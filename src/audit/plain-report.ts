@@ -1,0 +1,62 @@
+import type { Verdict } from '../log/verify-log.js';
+import { formatDuration } from '../session/describe-event.js';
+import type { LevelState } from '../session/level-state.js';
+import { fit, plural, right } from '../text/cells.js';
+import { describeCell, POOLED } from './evenness.js';
+import type { LevelAudit } from './level-audit.js';
+
+const day = (iso: string | null) => (iso ? iso.replace('T', ' ').slice(0, 16) : '–');
+const perMin = (v: number | null) => (v === null ? '–' : v.toFixed(1));
+
+/** The evenness test in words, a few lines. */
+export function evennessLines(audit: LevelAudit): string[] {
+  const ev = audit.evenness;
+  if (!ev.ok) return [`Evenness across traverses: not tested (${ev.reason}).`];
+  const { result, pooledTaxa, mergedTraverses, flagged, taxa } = ev.test;
+  const lines = [
+    `Evenness across traverses (χ² test of homogeneity, ${taxa.length} types × ${ev.test.columns.length} traverses): X² = ${result.statistic.toFixed(2)}, df = ${result.df}, p = ${result.p < 0.001 ? result.p.toExponential(1) : result.p.toFixed(3)}${result.p < 0.05 ? ': the types are NOT spread alike across traverses' : ': no sign that the types are spread unevenly'}.`,
+  ];
+  lines.push(`  types tested: ${taxa.join(', ')}`);
+  if (pooledTaxa.length) lines.push(`  ${plural(pooledTaxa.length, 'rare type')} pooled as "${POOLED}" so that expected counts are large enough (Cochran 1954).`);
+  if (mergedTraverses.length) lines.push(`  small traverses merged: ${mergedTraverses.map((c) => c.join('+')).join(', ')}.`);
+  for (const cell of flagged) lines.push(`  ${describeCell(cell)}`);
+  if (flagged.length) lines.push('  (with many cells, about 1 in 20 passes ±2 by chance alone)');
+  return lines;
+}
+
+/** The audit as text, for a lab notebook or an appendix. */
+export function plainReport(name: string, state: LevelState, audit: LevelAudit, verdict: Verdict): string {
+  const h = state.header;
+  const where = [h.site, h.core].filter(Boolean).join(' ');
+  const lines: string[] = [
+    `Audit of ${name}`,
+    `${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · slide ${h.slide ?? '–'} · analyst ${h.analyst ?? '–'}`,
+    `keymap "${state.keymap.name}" · counted ${day(audit.firstAt)} to ${day(audit.lastAt)} UTC · ${state.finishedAt ? `finished ${day(state.finishedAt)}` : 'not finished'}`,
+    `integrity: ${verdict.intact ? 'intact' : 'DAMAGED'}: ${verdict.summary}`,
+    ...verdict.warnings.map((w) => `  warning: ${w}`),
+    '',
+    `${plural(audit.grains, 'grain')} counted · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · counting time ${formatDuration(audit.countingMs)} · ${perMin(audit.perMinute)} grains/min`,
+    '',
+    'Sittings',
+    ...audit.sittings.map(
+      (s) =>
+        `  ${right(String(s.sitting), 2)}  ${day(s.start)} – ${day(s.end).slice(11)}  counting ${formatDuration(s.countingMs)}  ${plural(s.grains, 'grain')} recorded${s.pauses.length ? `  pauses: ${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min after #${p.afterSeq}`).join(', ')}` : ''}${s.closedCleanly ? '' : '  (not closed cleanly)'}`,
+    ),
+    '',
+    'Traverses',
+    `  ${right('#', 3)}  ${fit('start (UTC)', 16)}  ${right('time', 8)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new', 3)}  ${right('undo', 4)}  ${right('void', 4)}  ${right('notes', 5)}  new types`,
+    ...audit.traverses.map(
+      (t) =>
+        `  ${right(String(t.traverse), 3)}  ${fit(day(t.start), 16)}  ${right(formatDuration(t.activeMs), 8)}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMin(t.perMinute), 5)}  ${right(String(t.newTypes.length), 3)}  ${right(String(t.undos), 4)}  ${right(String(t.voided), 4)}  ${right(String(t.notes), 5)}  ${t.newTypes.join(', ')}${t.voidedWhole ? `  VOIDED: ${t.voidedWhole.reason}` : ''}`,
+    ),
+    '',
+    ...evennessLines(audit),
+    '',
+    audit.flags.length ? `Flags for review (${audit.flags.length})` : 'Flags for review: none',
+    ...audit.flags.map((f) => `  [${f.kind}] ${f.text}`),
+    '',
+    audit.corrections.length ? `Corrections (${audit.corrections.length})` : 'Corrections: none',
+    ...audit.corrections.map((c) => `  #${c.seq} ${day(c.at)}  ${c.what}: "${c.reason}"${c.restoredBy ? ` (restored by #${c.restoredBy})` : ''}`),
+  ];
+  return `${lines.join('\n')}\n`;
+}

@@ -1,0 +1,49 @@
+import { readFileSync, statSync } from 'node:fs';
+import { basename } from 'node:path';
+import { ExineError } from '../errors.js';
+import { scanLog } from '../log/scan-log.js';
+import { verdictOf } from '../log/verify-log.js';
+import type { OpenEvent, RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
+import { foldEvents } from '../session/fold.js';
+import { correctLevel } from '../session/session-files.js';
+import type { AuditSource } from '../screens/audit-screen.js';
+import { auditLevel, type AuditOptions } from './level-audit.js';
+
+/** Everything the audit shows, read without a lock and without changing the file. */
+export function readForAudit(path: string, options: AuditOptions) {
+  let bytes: Buffer;
+  try {
+    bytes = readFileSync(path);
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    throw new ExineError(code === 'ENOENT' ? `${path}: no such session file` : `${path}: cannot be read (${code})`);
+  }
+  const scan = scanLog(bytes);
+  if (scan.corruption || !scan.keymap) {
+    throw new ExineError(`${path}: ${scan.corruption?.message}; it cannot be audited until that is explained (exine verify ${path})`);
+  }
+  const events = scan.events as readonly SessionEvent[];
+  const state = foldEvents(events[0] as OpenEvent, scan.keymap, events);
+  const verdict = verdictOf(basename(path), scan);
+  return { scan, events, state, verdict, audit: auditLevel(events, state, options) };
+}
+
+
+/** The audit screen's view of a session file: read without a lock, re-read when it grows, corrected by short locked appends. */
+export function fileAuditSource(path: string, options: AuditOptions): AuditSource {
+  let seen = '';
+  const stamp = () => {
+    const s = statSync(path);
+    return `${s.size}:${s.mtimeMs}`;
+  };
+  return {
+    read: () => {
+      seen = stamp();
+      return readForAudit(path, options);
+    },
+    changed: () => stamp() !== seen,
+    correct: (payload: VoidPayload | RestorePayload) => {
+      correctLevel(path, payload);
+    },
+  };
+}

@@ -1,0 +1,134 @@
+import type { TraverseRow } from '../audit/level-audit.js';
+import type { KeyPress } from '../input/key-press.js';
+import type { RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
+import type { LevelState } from '../session/level-state.js';
+
+export type Focus = 'traverses' | 'grains';
+
+/** A correction waiting for its reason. */
+export interface Asking {
+  readonly payload: Omit<VoidPayload, 'reason'> | Omit<RestorePayload, 'reason'>;
+  readonly prompt: string;
+}
+
+/** Everything the audit screen shows besides the file itself: a plain value, changed key by key. */
+export interface AuditUi {
+  readonly selected: number;
+  readonly focus: Focus;
+  readonly grainIndex: number;
+  readonly overview: boolean;
+  readonly asking: Asking | null;
+  /** The reason typed so far, while asking. */
+  readonly reason: string;
+  /** A correction with its reason, for the screen to record. */
+  readonly pending: VoidPayload | RestorePayload | null;
+  readonly message: string | null;
+  readonly quit: boolean;
+}
+
+export const START_UI: AuditUi = { selected: 0, focus: 'traverses', grainIndex: 0, overview: false, asking: null, reason: '', pending: null, message: null, quit: false };
+
+/**
+ * A key while the reason is being typed: a one-line editor of our own, because
+ * a reason and its Enter typed fast arrive as one chunk ("slipped\r"), which a
+ * text-input component takes as text.
+ */
+function reasonKey(ui: AuditUi & { asking: Asking }, key: KeyPress): AuditUi {
+  switch (key.kind) {
+    case 'char':
+      return { ...ui, reason: ui.reason + key.char, message: null };
+    case 'backspace':
+      return { ...ui, reason: [...ui.reason].slice(0, -1).join('') };
+    case 'escape':
+    case 'interrupt':
+      return { ...ui, asking: null, reason: '', message: 'cancelled: nothing recorded' };
+    case 'enter': {
+      const reason = ui.reason.trim();
+      if (!reason) return { ...ui, message: 'a correction needs a reason; type one, or Esc to cancel' };
+      return { ...ui, asking: null, reason: '', pending: { ...ui.asking.payload, reason } as VoidPayload | RestorePayload };
+    }
+    default:
+      return ui;
+  }
+}
+
+/** What the keys act on: the traverses and what counts now. */
+export interface AuditView {
+  readonly traverses: readonly TraverseRow[];
+  readonly state: LevelState;
+  /** Why a grain does not count now ("undone", "VOIDED by #12"), or "" when it counts. */
+  readonly statusOf: (e: SessionEvent) => string;
+}
+
+export function grainsOf(t: TraverseRow | undefined): (SessionEvent & { type: 'grain' })[] {
+  return (t?.events ?? []).filter((e): e is SessionEvent & { type: 'grain' } => e.type === 'grain');
+}
+
+/** The void standing on this one grain alone, if any. */
+function singleVoidOf(state: LevelState, seq: number): number | null {
+  for (const [v, grains] of Object.entries(state.voids)) if (grains.length === 1 && grains[0]?.seq === seq) return Number(v);
+  return null;
+}
+
+const clamp = (v: number, max: number) => Math.max(0, Math.min(max, v));
+
+/**
+ * One key on the audit screen. Several keys can arrive before a render, so each
+ * is applied to the result of the one before.
+ */
+export function auditKey(ui: AuditUi, key: KeyPress, view: AuditView): AuditUi {
+  if (ui.asking) return reasonKey({ ...ui, asking: ui.asking }, key);
+  const next = { ...ui, message: null };
+  const traverse = view.traverses[clamp(ui.selected, view.traverses.length - 1)];
+  const grains = grainsOf(traverse);
+  const grain = grains[clamp(ui.grainIndex, grains.length - 1)];
+  switch (key.kind) {
+    case 'interrupt':
+    case 'escape':
+      return { ...next, quit: true };
+    case 'tab':
+    case 'left':
+    case 'right':
+      return { ...next, focus: ui.focus === 'traverses' ? 'grains' : 'traverses', grainIndex: 0 };
+    case 'up':
+    case 'down': {
+      const step = key.kind === 'up' ? -1 : 1;
+      return ui.focus === 'traverses'
+        ? { ...next, selected: clamp(ui.selected + step, view.traverses.length - 1), grainIndex: 0 }
+        : { ...next, grainIndex: clamp(ui.grainIndex + step, grains.length - 1) };
+    }
+    case 'char':
+      break;
+    default:
+      return next;
+  }
+  switch (key.char) {
+    case 'q':
+      return { ...next, quit: true };
+    case 'f':
+      return { ...next, overview: !ui.overview };
+    case 'v': {
+      if (!traverse) return next;
+      if (ui.focus === 'traverses') {
+        if (traverse.voidedWhole) return { ...next, message: `traverse ${traverse.traverse} is voided already (r restores it)` };
+        if (traverse.grains === 0) return { ...next, message: `traverse ${traverse.traverse} has no grain that counts` };
+        return { ...next, asking: { payload: { type: 'void', grain: null, traverse: traverse.traverse }, prompt: `Void all ${traverse.grains} grains of traverse ${traverse.traverse}. Reason: ` } };
+      }
+      if (!grain) return next;
+      const status = view.statusOf(grain);
+      if (status) return { ...next, message: `grain #${grain.seq} does not count now (${status})` };
+      return { ...next, asking: { payload: { type: 'void', grain: grain.seq, traverse: null }, prompt: `Void grain #${grain.seq} (${grain.taxon}). Reason: ` } };
+    }
+    case 'r': {
+      if (!traverse) return next;
+      const single = ui.focus === 'grains' && grain ? singleVoidOf(view.state, grain.seq) : null;
+      if (single !== null && grain) return { ...next, asking: { payload: { type: 'restore', of: single }, prompt: `Restore grain #${grain.seq} (void #${single}). Reason: ` } };
+      if (traverse.voidedWhole) {
+        return { ...next, asking: { payload: { type: 'restore', of: traverse.voidedWhole.seq }, prompt: `Restore traverse ${traverse.traverse} (void #${traverse.voidedWhole.seq}). Reason: ` } };
+      }
+      return { ...next, message: 'nothing voided here to restore' };
+    }
+    default:
+      return next;
+  }
+}
