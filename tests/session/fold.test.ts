@@ -159,3 +159,59 @@ describe('when each type entered the count, and the plateau', () => {
   });
 });
 
+describe('voids and restores', () => {
+  it('property: counts follow a model of grains, undos, voids of grains and traverses, and restores (fast-check)', () => {
+    const payload = fc.oneof(
+      { weight: 5, arbitrary: fc.tuple(fc.constantFrom('Alnus', 'Betula', 'Corylus'), fc.integer({ min: 1, max: 3 })).map(([t, tr]) => grain(t, tr)) },
+      { weight: 1, arbitrary: fc.integer({ min: 2, max: 60 }).map((of): EventPayload => ({ type: 'undo', of })) },
+      { weight: 1, arbitrary: fc.integer({ min: 2, max: 60 }).map((g): EventPayload => ({ type: 'void', grain: g, traverse: null, reason: 'r' })) },
+      { weight: 1, arbitrary: fc.integer({ min: 1, max: 3 }).map((t): EventPayload => ({ type: 'void', grain: null, traverse: t, reason: 'r' })) },
+      { weight: 1, arbitrary: fc.integer({ min: 2, max: 60 }).map((of): EventPayload => ({ type: 'restore', of, reason: 'r' })) },
+    );
+    fc.assert(
+      fc.property(fc.array(payload, { maxLength: 60 }), (ps) => {
+        const events = ps.map((p, i) => ({ ...p, seq: i + 2, at: at(i + 1) }) as SessionEvent);
+        const state = foldEvents(open, TINY_KEYMAP, events);
+        // Model: grain seq -> taxon/traverse, with the set that counts now.
+        const grains = new Map<number, { taxon: string; traverse: number }>();
+        const counting = new Set<number>();
+        const voids = new Map<number, number[]>();
+        for (const e of events) {
+          if (e.type === 'grain') {
+            grains.set(e.seq, e);
+            counting.add(e.seq);
+          } else if (e.type === 'undo') {
+            // An undo acts only on a grain that counts.
+            counting.delete(e.of);
+          } else if (e.type === 'void') {
+            const hit = [...counting].filter((g) => (e.grain !== null ? g === e.grain : grains.get(g)!.traverse === e.traverse));
+            if (hit.length) {
+              voids.set(e.seq, hit);
+              for (const g of hit) counting.delete(g);
+            }
+          } else if (e.type === 'restore' && voids.has(e.of)) {
+            for (const g of voids.get(e.of)!) counting.add(g);
+            voids.delete(e.of);
+          }
+        }
+        const expected: Record<string, number> = {};
+        for (const g of counting) expected[grains.get(g)!.taxon] = (expected[grains.get(g)!.taxon] ?? 0) + 1;
+        expect(state.counts).toEqual(expected);
+        expect(state.grains).toBe(counting.size);
+        expect(Object.keys(state.voids).map(Number).sort((a, b) => a - b)).toEqual([...voids.keys()].sort((a, b) => a - b));
+        // The stack stays ordered newest first.
+        const seqs: number[] = [];
+        for (let st = state.stack; st; st = st.below) seqs.push(st.seq);
+        expect(seqs).toEqual([...counting].sort((a, b) => b - a));
+      }),
+      { numRuns: 500 },
+    );
+  });
+
+  it('a correction leaves "closed cleanly" as it was', () => {
+    const s = given([grain('Alnus'), { type: 'close' }, { type: 'void', grain: 2, traverse: null, reason: 'double press' }]);
+    expect(s.closed).toBe(true);
+    expect(s.counts).toEqual({});
+  });
+});
+
