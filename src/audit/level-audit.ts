@@ -91,11 +91,13 @@ export interface LevelAudit {
   readonly corrections: readonly Correction[];
   readonly evenness: Evenness;
   readonly firstAt: string;
+  /** The last event of counting (corrections made later are not counting). */
   readonly lastAt: string;
 }
 
 const minutes = (ms: number) => ms / 60_000;
-const rate = (grains: number, ms: number) => (ms > 0 ? grains / minutes(ms) : null);
+// Under a second of recorded time gives no meaningful rate (a burst, a single event).
+const rate = (grains: number, ms: number) => (ms >= 1000 ? grains / minutes(ms) : null);
 
 function formatGap(ms: number): string {
   const s = Math.round(ms / 1000);
@@ -109,6 +111,8 @@ function formatGap(ms: number): string {
 export function auditLevel(events: readonly SessionEvent[], state: LevelState, options: AuditOptions): LevelAudit {
   const counted = new Map<number, { taxon: string; traverse: number }>();
   for (let s = state.stack; s; s = s.below) counted.set(s.seq, { taxon: s.taxon, traverse: s.traverse });
+  const undone = new Set<number>();
+  for (const e of events) if (e.type === 'undo') undone.add(e.of);
   const grainTraverse = new Map<number, number>();
   const grainOf = new Map<number, SessionEvent & { type: 'grain' }>();
   for (const e of events) {
@@ -143,6 +147,7 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
 
   // Corrections are made later, in the audit: they and the rule verdicts they cause are no part of the counting time.
   let correcting = false;
+  let lastCounting = events[0]?.at ?? state.header.at;
   for (const e of events) {
     if (e.type === 'open') {
       previous = e;
@@ -154,6 +159,7 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
       if (e.type === 'void') into(e.grain !== null ? (grainTraverse.get(e.grain) ?? current) : (e.traverse as number), e);
       continue;
     }
+    lastCounting = e.at;
     const dt = previous ? Date.parse(e.at) - Date.parse(previous.at) : 0;
     if (dt < 0 && previous) {
       flags.push({ kind: 'clock', seq: e.seq, traverse: current, text: `#${e.seq} is ${formatGap(-dt)} earlier than the event before it: the computer's clock was changed` });
@@ -187,9 +193,11 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
         into(e.traverse, e);
         if (sitting) sitting.grains++;
         const last = previousGrain;
-        if (last && last.key === e.key && Date.parse(e.at) - Date.parse(last.at) < options.doublePressMs && counted.has(e.seq) && counted.has(last.seq)) {
+        // An undo at the eyepiece settles it; a void made later in the audit is shown beside the flag.
+        if (last && last.key === e.key && Date.parse(e.at) - Date.parse(last.at) < options.doublePressMs && !undone.has(e.seq) && !undone.has(last.seq)) {
           const ms = Date.parse(e.at) - Date.parse(last.at);
-          flags.push({ kind: 'double-press', seq: e.seq, traverse: e.traverse, text: `#${last.seq} and #${e.seq}: key "${e.key}" (${e.taxon}) twice within ${ms} ms, a double press? both count` });
+          const settled = !counted.has(e.seq) || !counted.has(last.seq) ? 'one of them is voided' : 'both count';
+          flags.push({ kind: 'double-press', seq: e.seq, traverse: e.traverse, text: `#${last.seq} and #${e.seq}: key "${e.key}" (${e.taxon}) twice within ${ms} ms, a double press? ${settled}` });
         }
         previousGrain = e;
         break;
@@ -297,6 +305,6 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
     corrections,
     evenness: evennessAcrossTraverses(table),
     firstAt: events[0]?.at ?? state.header.at,
-    lastAt: events.at(-1)?.at ?? state.lastAt,
+    lastAt: lastCounting,
   };
 }

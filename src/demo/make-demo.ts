@@ -21,6 +21,10 @@ interface DemoLevel {
   readonly shares: Readonly<Record<string, number>>;
   readonly start: string;
   readonly rules?: RuleSet;
+  /** Grains of one taxon gathered on some traverses (large grains drift to the edges of the cover slip). */
+  readonly uneven?: { readonly taxon: string; readonly traverses: readonly number[]; readonly factor: number };
+  /** Things an audit should find: a double press, an interruption, and corrections made days later. */
+  readonly auditTrail?: boolean;
 }
 
 // An invented marker batch; a real one comes with its own figures, entered by the analyst.
@@ -30,7 +34,7 @@ const SPIKE: Spike = { tablets: 1, perTablet: 12_500, perTabletSd: 420, volume: 
 const LEVELS: readonly DemoLevel[] = [
   { file: 'km1-012cm.jsonl', depth: 12, sum: 512, finished: true, start: '2026-10-05T08:40:00.000Z',
     shares: { Quercus: 9, Betula: 6, Alnus: 11, Pinus: 4, Corylus: 8, Calluna: 9, Poaceae: 24, Cyperaceae: 6, 'Plantago lanceolata': 8, Rumex: 4, Asteraceae: 3, Artemisia: 1, Pteridium: 5, Sphagnum: 3, 'Lycopodium (exotic marker)': 7, Indeterminable: 3, Charcoal: 4 } },
-  { file: 'km1-036cm.jsonl', depth: 36, sum: 505, finished: true, start: '2026-10-06T09:05:00.000Z',
+  { file: 'km1-036cm.jsonl', depth: 36, sum: 505, finished: true, start: '2026-10-06T09:05:00.000Z', auditTrail: true,
     shares: { Quercus: 18, Betula: 5, Alnus: 17, Ulmus: 2, Tilia: 3, Fraxinus: 3, Fagus: 1, Corylus: 16, Salix: 2, Calluna: 4, Hedera: 1, Poaceae: 12, Cyperaceae: 4, 'Plantago lanceolata': 3, Filipendula: 2, Pteridium: 3, Polypodium: 2, Nymphaea: 1, 'Lycopodium (exotic marker)': 8, Indeterminable: 3 } },
   { file: 'km1-060cm.jsonl', depth: 60, sum: 520, finished: true, start: '2026-10-07T08:30:00.000Z',
     shares: { Quercus: 22, Betula: 4, Alnus: 16, Ulmus: 7, Tilia: 6, Fraxinus: 3, Pinus: 3, Corylus: 22, Salix: 1, Hedera: 1, Poaceae: 6, Cyperaceae: 3, Filipendula: 1, Ranunculaceae: 1, Polypodium: 3, Nymphaea: 1, 'Lycopodium (exotic marker)': 9, Indeterminable: 2 } },
@@ -38,7 +42,7 @@ const LEVELS: readonly DemoLevel[] = [
   { file: 'km1-084cm.jsonl', depth: 84, sum: 236, finished: false, start: '2026-10-08T13:10:00.000Z',
     rules: { ...NO_RULES, precision: { halfWidth: 4, share: 10, taxa: null }, coverage: 0.98, markers: 40, minSum: 300 },
     shares: { Quercus: 12, Betula: 12, Alnus: 6, Ulmus: 9, Pinus: 14, Corylus: 26, Salix: 3, Poaceae: 6, Cyperaceae: 3, Artemisia: 1, Filipendula: 2, Tilia: 0.6, Fraxinus: 0.4, Hedera: 0.3, Rumex: 0.4, Ranunculaceae: 0.3, Polypodium: 2, Pteridium: 1, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
-  { file: 'km1-108cm.jsonl', depth: 108, sum: 501, finished: true, start: '2026-10-09T08:50:00.000Z',
+  { file: 'km1-108cm.jsonl', depth: 108, sum: 501, finished: true, start: '2026-10-09T08:50:00.000Z', uneven: { taxon: 'Pinus', traverses: [1, 12], factor: 4 },
     shares: { Betula: 38, Pinus: 24, Salix: 6, Corylus: 3, Poaceae: 12, Cyperaceae: 8, Artemisia: 5, Amaranthaceae: 2, Rumex: 1, Sphagnum: 2, 'Lycopodium (exotic marker)': 12, Indeterminable: 4 } },
 ];
 
@@ -62,7 +66,7 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
     const event = { ...payload, ...stamp } as SessionEvent;
     state = state ? applyEvent(state, event) : initialState(event as OpenEvent, keymap);
     // The demo records the stop signal where a live count would have.
-    if (payload.type === 'grain' || payload.type === 'undo') {
+    if (payload.type === 'grain' || payload.type === 'undo' || payload.type === 'void' || payload.type === 'restore') {
       const signal = rulesSignal(state);
       if (signal) write(signal, 5);
     }
@@ -77,6 +81,7 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
   const traverseLength = () => 35 + Math.floor(random() * 30);
   let thisTraverse = traverseLength();
   const lastGrains: number[] = [];
+  let doublePress = 0;
   const breakAt = level.finished ? Math.floor(level.sum * 0.55) : -1;
   while (sum < level.sum) {
     if (inTraverse >= thisTraverse) {
@@ -90,9 +95,20 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
       sitting++;
       write({ type: 'sitting', sitting }, 18 * 3600_000 + random() * 3600_000);
     }
-    const [taxon] = taxa[pickWeighted(random, taxa.map(([, w]) => w))] as [string, number];
+    const u = level.uneven;
+    const weights = taxa.map(([t, w]) => (u && t === u.taxon && u.traverses.includes(traverse) ? w * u.factor : w));
+    const [taxon] = taxa[pickWeighted(random, weights)] as [string, number];
     const key = keyOf.get(taxon) as string;
-    const s = write({ type: 'grain', taxon, traverse, key }, 1_500 + random() * 5_000 + (random() < 0.03 ? 40_000 : 0));
+    // The audit trail: an analyst called away for seven minutes in the middle of a traverse.
+    const away = level.auditTrail && sum === 200 ? 7 * 60_000 : 0;
+    const s = write({ type: 'grain', taxon, traverse, key }, away + 1_500 + random() * 5_000 + (random() < 0.03 ? 40_000 : 0));
+    if (level.auditTrail && sum === 120) {
+      // The same key twice in 60 ms: a double press that the audit flags and the analyst later voids.
+      doublePress = write({ type: 'grain', taxon, traverse, key }, 60);
+      lastGrains.push(s);
+      if (inSum.has(taxon)) sum++;
+      inTraverse++;
+    }
     lastGrains.push(s);
     inTraverse++;
     if (inSum.has(taxon)) sum++;
@@ -105,6 +121,12 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
   }
   if (level.finished) write({ type: 'finish' }, 5_000);
   else write({ type: 'close' }, 5_000);
+  if (level.auditTrail) {
+    // Three days later, in the audit: corrections are new events; the grains stay in the file.
+    write({ type: 'void', grain: doublePress, traverse: null, reason: 'double press: one grain, the key bounced' }, 3 * 24 * 3600_000);
+    const slipped = write({ type: 'void', grain: null, traverse: 4, reason: 'stage slipped: traverse 4 went over part of traverse 3' }, 90_000);
+    write({ type: 'restore', of: slipped, reason: 'checked the slide again: no overlap, traverse 4 stands' }, 26 * 3600_000);
+  }
   return `${lines.join('\n')}\n`;
 }
 

@@ -23,7 +23,9 @@ export function verdictOf(name: string, scan: LogScan): Verdict {
     const kept = scan.lines;
     return { intact: false, summary: `${name}: ${damage.message} (${plural(kept, 'line')} before it ${kept === 1 ? 'is' : 'are'} intact)`, warnings };
   }
-  const last = scan.events[scan.events.length - 1];
+  // Corrections made later in the audit (and the rule verdicts they bring) come after the last sitting's close.
+  const later = new Set(['void', 'restore', 'rules-met', 'rules-unmet']);
+  const last = scan.events.findLast((e) => !later.has(e.type));
   const closed = last?.type === 'close' || last?.type === 'finish';
   return {
     intact: true,

@@ -56,8 +56,10 @@ function reasonKey(ui: AuditUi & { asking: Asking }, key: KeyPress): AuditUi {
 export interface AuditView {
   readonly traverses: readonly TraverseRow[];
   readonly state: LevelState;
-  /** Why a grain does not count now ("undone", "VOIDED by #12"), or "" when it counts. */
+  /** What became of a grain ("undone", "VOIDED by #12", "double press?"), or "". */
   readonly statusOf: (e: SessionEvent) => string;
+  /** Whether grain `seq` counts now (not undone, not voided). */
+  readonly counts: (seq: number) => boolean;
 }
 
 export function grainsOf(t: TraverseRow | undefined): (SessionEvent & { type: 'grain' })[] {
@@ -115,8 +117,7 @@ export function auditKey(ui: AuditUi, key: KeyPress, view: AuditView): AuditUi {
         return { ...next, asking: { payload: { type: 'void', grain: null, traverse: traverse.traverse }, prompt: `Void all ${traverse.grains} grains of traverse ${traverse.traverse}. Reason: ` } };
       }
       if (!grain) return next;
-      const status = view.statusOf(grain);
-      if (status) return { ...next, message: `grain #${grain.seq} does not count now (${status})` };
+      if (!view.counts(grain.seq)) return { ...next, message: `grain #${grain.seq} does not count now (${view.statusOf(grain)})` };
       return { ...next, asking: { payload: { type: 'void', grain: grain.seq, traverse: null }, prompt: `Void grain #${grain.seq} (${grain.taxon}). Reason: ` } };
     }
     case 'r': {

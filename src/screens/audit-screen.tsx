@@ -68,7 +68,11 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
   // Keys are applied to these, never to values captured at the last render.
   const readRef = useRef(read);
   const uiRef = useRef(ui);
-  const viewOf = (r: AuditRead): AuditView => ({ traverses: r.audit.traverses, state: r.state, statusOf: grainStatus(r) });
+  const viewOf = (r: AuditRead): AuditView => {
+    const counting = new Set<number>();
+    for (let s = r.state.stack; s; s = s.below) counting.add(s.seq);
+    return { traverses: r.audit.traverses, state: r.state, statusOf: grainStatus(r), counts: (seq) => counting.has(seq) };
+  };
 
   // Follow the file while another exine counts it.
   useEffect(() => {
@@ -125,8 +129,8 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
   const evenLine = ev.ok
     ? `Evenness χ² ${ev.test.result.statistic.toFixed(1)}, df ${ev.test.result.df}, p ${ev.test.result.p < 0.001 ? '<0.001' : ev.test.result.p.toFixed(3)}${ev.test.result.p < 0.05 ? ': types NOT spread alike' : ': no sign of uneven spread'}${ev.test.flagged.length ? ` · ${plural(ev.test.flagged.length, 'cell')} stand out` : ''}`
     : `Evenness: not tested (${ev.reason})`;
-  // Four header lines, the table's title, the detail's two title lines, the prompt and the key line.
-  const fixed = 9;
+  // Four header lines, the table's title, the detail's two title lines, two lines of prompt or message, the key line.
+  const fixed = 10;
   const tableRoom = Math.max(3, Math.min(audit.traverses.length, Math.floor((height - fixed) / 2)));
   const detailRoom = Math.max(3, height - fixed - tableRoom);
   const tv = window(audit.traverses, selected, tableRoom);
@@ -184,14 +188,18 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
         </Box>
       )}
       {asking ? (
-        <Text bold wrap="truncate-start">{`${asking.prompt}${ui.reason}█`}</Text>
+        <Box height={2} overflow="hidden">
+          <Text bold wrap="wrap">{`${asking.prompt}${ui.reason}█`}</Text>
+        </Box>
       ) : (
-        <Text color={message?.startsWith('not recorded') ? theme.error : theme.warning} wrap="truncate-end">
-          {message ?? (read.verdict.warnings[0] ? `warning: ${read.verdict.warnings[0]}` : ' ')}
-        </Text>
+        <Box height={2} overflow="hidden">
+          <Text color={message?.startsWith('not recorded') ? theme.error : theme.warning} wrap="wrap">
+            {message ?? (read.verdict.warnings[0] ? `warning: ${read.verdict.warnings[0]}` : ' ')}
+          </Text>
+        </Box>
       )}
       <Text dimColor={theme.dim} wrap="truncate-end">
-        {asking ? 'Enter records the correction · Esc cancels' : '↑↓ select · Tab traverses/grains · v void · r restore · f flags · q quit'}
+        {asking ? (message ?? 'Enter records the correction · Esc cancels') : '↑↓ select · Tab traverses/grains · v void · r restore · f flags · q quit'}
       </Text>
     </Box>
   );
