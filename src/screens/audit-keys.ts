@@ -62,8 +62,9 @@ export interface AuditView {
   readonly counts: (seq: number) => boolean;
 }
 
-export function grainsOf(t: TraverseRow | undefined): (SessionEvent & { type: 'grain' })[] {
-  return (t?.events ?? []).filter((e): e is SessionEvent & { type: 'grain' } => e.type === 'grain');
+/** The events listed under a traverse: its grains, undos, notes and the corrections aimed at it. */
+export function eventsOf(t: TraverseRow | undefined): readonly SessionEvent[] {
+  return t?.events ?? [];
 }
 
 /** The void standing on this one grain alone, if any. */
@@ -82,8 +83,9 @@ export function auditKey(ui: AuditUi, key: KeyPress, view: AuditView): AuditUi {
   if (ui.asking) return reasonKey({ ...ui, asking: ui.asking }, key);
   const next = { ...ui, message: null };
   const traverse = view.traverses[clamp(ui.selected, view.traverses.length - 1)];
-  const grains = grainsOf(traverse);
-  const grain = grains[clamp(ui.grainIndex, grains.length - 1)];
+  const listed = eventsOf(traverse);
+  const picked = listed[clamp(ui.grainIndex, listed.length - 1)];
+  const grain = picked?.type === 'grain' ? picked : undefined;
   switch (key.kind) {
     case 'interrupt':
     case 'escape':
@@ -97,7 +99,7 @@ export function auditKey(ui: AuditUi, key: KeyPress, view: AuditView): AuditUi {
       const step = key.kind === 'up' ? -1 : 1;
       return ui.focus === 'traverses'
         ? { ...next, selected: clamp(ui.selected + step, view.traverses.length - 1), grainIndex: 0 }
-        : { ...next, grainIndex: clamp(ui.grainIndex + step, grains.length - 1) };
+        : { ...next, grainIndex: clamp(ui.grainIndex + step, listed.length - 1) };
     }
     case 'char':
       break;
@@ -116,7 +118,7 @@ export function auditKey(ui: AuditUi, key: KeyPress, view: AuditView): AuditUi {
         if (traverse.grains === 0) return { ...next, message: `traverse ${traverse.traverse} has no grain that counts` };
         return { ...next, asking: { payload: { type: 'void', grain: null, traverse: traverse.traverse }, prompt: `Void all ${traverse.grains} grains of traverse ${traverse.traverse}. Reason: ` } };
       }
-      if (!grain) return next;
+      if (!grain) return { ...next, message: 'select a grain to void (or Tab back to the traverses to void a whole one)' };
       if (!view.counts(grain.seq)) return { ...next, message: `grain #${grain.seq} does not count now (${view.statusOf(grain)})` };
       return { ...next, asking: { payload: { type: 'void', grain: grain.seq, traverse: null }, prompt: `Void grain #${grain.seq} (${grain.taxon}). Reason: ` } };
     }

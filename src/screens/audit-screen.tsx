@@ -1,7 +1,7 @@
 import { Box, Text, useApp, useInput } from 'ink';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { splitKeys } from '../input/key-press.js';
-import { auditKey, grainsOf, START_UI, type AuditUi, type AuditView } from './audit-keys.js';
+import { auditKey, eventsOf, START_UI, type AuditUi, type AuditView } from './audit-keys.js';
 import { describeCell } from '../audit/evenness.js';
 import type { LevelAudit, TraverseRow } from '../audit/level-audit.js';
 import type { Verdict } from '../log/verify-log.js';
@@ -118,7 +118,7 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
   const { audit } = read;
   const { selected, focus, grainIndex, overview, asking, message } = ui;
   const traverse = audit.traverses[Math.min(selected, audit.traverses.length - 1)] as TraverseRow | undefined;
-  const grains = useMemo(() => grainsOf(traverse), [traverse]);
+  const grains = useMemo(() => eventsOf(traverse), [traverse]);
   const statusOf = useMemo(() => grainStatus(read), [read]);
 
   const width = columns ?? terminal.columns;
