@@ -111,6 +111,26 @@ describe('the audit screen', () => {
     }
   });
 
+  it('fits 80x24 and uses a larger terminal', async () => {
+    const dir = tempDir();
+    const path = `${dir}/km1-036cm.jsonl`;
+    (await import('node:fs')).copyFileSync(new URL('../../demo-sessions/km1-036cm.jsonl', import.meta.url), path);
+    const source = fileAuditSource(path, { doublePressMs: DEFAULT_DOUBLE_PRESS_MS, gapMs: DEFAULT_GAP_MS });
+    for (const [columns, rows] of [[80, 24], [140, 45]] as const) {
+      const ui = render(<AuditScreen source={source} columns={columns} rows={rows} />);
+      await tick();
+      const lines = (ui.lastFrame() ?? '').split('\n');
+      expect(lines.length).toBeLessThan(rows);
+      for (const line of lines) expect([...line].length).toBeLessThanOrEqual(columns);
+      expect(ui.lastFrame()).toMatch(/2 flags to review · 3 corrections/);
+      ui.unmount();
+    }
+    const big = render(<AuditScreen source={source} columns={140} rows={45} />);
+    await tick();
+    expect((big.lastFrame() ?? '').match(/^.\s+\d+ \d\d:\d\d:\d\d/gm)?.length).toBe(12);
+    big.unmount();
+  });
+
   it('q quits', async () => {
     const a = await auditOf(level());
     await a.type('q');
