@@ -44,12 +44,12 @@ describe('the audit of a level, traverse by traverse', () => {
     const [t1, t2] = audit.traverses;
     expect(t1).toMatchObject({ grains: 5, recorded: 6, types: 2, undos: 1, voided: 0, notes: 0 });
     expect(t1!.byTaxon).toEqual([['Alnus', 3], ['Betula', 2]]);
-    expect(t1!.newTypes.sort()).toEqual(['Alnus', 'Betula']);
+    expect([...t1!.newTypes].sort()).toEqual(['Alnus', 'Betula']);
     // From the sitting start (1 s) to the traverse event (90 s): 89 s in traverse 1.
     expect(t1!.activeMs).toBe(s(89));
     expect(t1!.perMinute).toBeCloseTo(5 / (89 / 60), 10);
     expect(t2).toMatchObject({ grains: 4, types: 3, undos: 0, activeMs: s(50) });
-    expect(t2!.newTypes.sort()).toEqual(['Corylus', 'Poaceae']);
+    expect([...t2!.newTypes].sort()).toEqual(['Corylus', 'Poaceae']);
     expect(t1!.start).toBe(new Date(T0 + s(10)).toISOString());
   });
 
