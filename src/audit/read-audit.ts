@@ -1,6 +1,7 @@
-import { readFileSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { basename } from 'node:path';
 import { ExineError } from '../errors.js';
+import { readSessionBytes } from '../io/read-session-bytes.js';
 import { scanLog } from '../log/scan-log.js';
 import { verdictOf } from '../log/verify-log.js';
 import type { OpenEvent, RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
@@ -11,13 +12,7 @@ import { auditLevel, type AuditOptions } from './level-audit.js';
 
 /** Everything the audit shows, read without a lock and without changing the file. */
 export function readForAudit(path: string, options: AuditOptions) {
-  let bytes: Buffer;
-  try {
-    bytes = readFileSync(path);
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    throw new ExineError(code === 'ENOENT' ? `${path}: no such session file` : `${path}: cannot be read (${code})`);
-  }
+  const bytes = readSessionBytes(path);
   const scan = scanLog(bytes);
   if (scan.corruption || !scan.keymap) {
     throw new ExineError(`${path}: ${scan.corruption?.message}; it cannot be audited until that is explained (exine verify ${path})`);

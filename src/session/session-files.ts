@@ -1,7 +1,8 @@
 import { randomBytes } from 'node:crypto';
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { ExineError } from '../errors.js';
+import { readSessionBytes } from '../io/read-session-bytes.js';
 import type { Keymap } from '../keymap/keymap.js';
 import { repairTail } from '../log/repair-tail.js';
 import { scanLog, type LogScan } from '../log/scan-log.js';
@@ -28,17 +29,6 @@ export interface NewLevel {
   readonly spike: Spike | null;
 }
 
-function readBytes(path: string): Buffer {
-  try {
-    return readFileSync(path);
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    if (code === 'ENOENT') throw new ExineError(`${path}: no such session file`);
-    if (code === 'EISDIR') throw new ExineError(`${path} is a folder, not a session file`);
-    throw new ExineError(`${path}: cannot be read (${code ?? String(error)})`);
-  }
-}
-
 /** Scan a file's bytes and fold its valid events as they are read, keeping none of them. */
 function scanAndFold(bytes: Buffer): { scan: LogScan; state: LevelState | null } {
   let folding: Folding | null = null;
@@ -51,7 +41,7 @@ function scanAndFold(bytes: Buffer): { scan: LogScan; state: LevelState | null }
 
 /** Read a level without locking or changing it: for summary, export, audit. */
 export function readLevel(path: string): { scan: LogScan; state: LevelState; warnings: string[] } {
-  const { scan, state } = scanAndFold(readBytes(path));
+  const { scan, state } = scanAndFold(readSessionBytes(path));
   if (scan.corruption || !state) {
     throw new ExineError(`${path}: ${scan.corruption?.message}; nothing was read (exine verify ${path} shows the details)`);
   }
@@ -119,7 +109,7 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
   try {
     const notices: string[] = [];
     if (lock.tookOverFrom) notices.push(`took over a stale lock (${lock.tookOverFrom})`);
-    const bytes = readBytes(path);
+    const bytes = readSessionBytes(path);
     const { scan, state: folded } = scanAndFold(bytes);
     if (scan.corruption || !folded) {
       throw new ExineError(
@@ -182,7 +172,7 @@ export function correctLevel(path: string, payload: VoidPayload | RestorePayload
   if (!payload.reason.trim()) throw new ExineError('a correction needs a reason: say why, in a few words');
   const lock = SessionLock.acquire(path);
   try {
-    const { scan, state } = scanAndFold(readBytes(path));
+    const { scan, state } = scanAndFold(readSessionBytes(path));
     if (scan.corruption || !state) {
       throw new ExineError(`${path}: ${scan.corruption?.message}; no correction was made (exine verify ${path} for details)`);
     }
