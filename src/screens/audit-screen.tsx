@@ -53,6 +53,20 @@ function grainStatus(read: AuditRead): (e: SessionEvent) => string {
   };
 }
 
+/** The sittings, the cells that stand out, the flags and the corrections, one line each. */
+function overviewLines({ audit }: AuditRead): string[] {
+  const ev = audit.evenness;
+  return [
+    ...audit.sittings.map(
+      (s) =>
+        `sitting ${s.sitting}: ${s.start.slice(0, 16).replace('T', ' ')}–${time(s.end)} · counting ${formatDuration(s.countingMs)}${s.pauses.length ? ` · ${plural(s.pauses.length, 'pause')} (${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min`).join(', ')})` : ''}${s.closedCleanly ? '' : ' · not closed cleanly'}`,
+    ),
+    ...(ev.ok ? ev.test.flagged.map(describeCell) : []),
+    ...audit.flags.map((f) => `[${f.kind}] ${f.text}`),
+    ...audit.corrections.map((c) => `#${c.seq} ${c.what}: "${c.reason}"${c.restoredBy ? ` (restored by #${c.restoredBy})` : ''}`),
+  ];
+}
+
 function window<T>(items: readonly T[], selected: number, room: number): { shown: readonly T[]; offset: number } {
   if (items.length <= room) return { shown: items, offset: 0 };
   const offset = Math.max(0, Math.min(items.length - room, selected - Math.floor(room / 2)));
@@ -146,8 +160,8 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
       <Text wrap="truncate-end" color={audit.flags.length ? theme.warning : undefined}>
         {`${audit.flags.length ? `${plural(audit.flags.length, 'flag')} to review` : 'no flags'} · ${audit.corrections.length ? plural(audit.corrections.length, 'correction') : 'no corrections'} · f shows them`}
       </Text>
-      <Text bold>{fit('   # start     time grain type  /min new und voi not', width)}</Text>
-      {tv.shown.map((t, i) => {
+      {overview ? null : <Text bold>{fit('   # start     time grain type  /min new und voi not', width)}</Text>}
+      {(overview ? [] : tv.shown).map((t, i) => {
         const here = tv.offset + i === selected;
         return (
           <Text key={t.traverse} inverse={here && focus === 'traverses'} bold={here} color={t.voidedWhole ? theme.zero : undefined} wrap="truncate-end">
@@ -156,17 +170,11 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
         );
       })}
       {overview ? (
-        <Box flexDirection="column" height={detailRoom + 2} overflow="hidden">
+        // The overview takes the table's room as well.
+        <Box flexDirection="column" height={detailRoom + tableRoom + 3}>
           <Text bold>Sittings, flags and corrections (f: back)</Text>
-          {audit.sittings.map((s) => (
-            <Text key={`s${s.sitting}`} wrap="truncate-end">{`sitting ${s.sitting}: ${s.start.slice(0, 16).replace('T', ' ')}–${time(s.end)} · counting ${formatDuration(s.countingMs)}${s.pauses.length ? ` · ${plural(s.pauses.length, 'pause')} (${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min`).join(', ')})` : ''}${s.closedCleanly ? '' : ' · not closed cleanly'}`}</Text>
-          ))}
-          {ev.ok ? ev.test.flagged.map((c) => <Text key={`e${c.taxon}${c.traverses.join()}`} wrap="truncate-end">{describeCell(c)}</Text>) : null}
-          {audit.flags.map((f) => (
-            <Text key={`f${f.seq}${f.kind}`} wrap="truncate-end">{`[${f.kind}] ${f.text}`}</Text>
-          ))}
-          {audit.corrections.map((c) => (
-            <Text key={`c${c.seq}`} wrap="truncate-end">{`#${c.seq} ${c.what}: "${c.reason}"${c.restoredBy ? ` (restored by #${c.restoredBy})` : ''}`}</Text>
+          {overviewLines(read).slice(0, detailRoom + tableRoom + 2).map((line, i) => (
+            <Text key={i} wrap="truncate-end">{line}</Text>
           ))}
         </Box>
       ) : (
