@@ -32,6 +32,8 @@ export function levelSummary(state: LevelState, rarefyAt: readonly number[] = []
     types: stats.freq.s,
     typesAll: table.rows.filter((r) => r.count > 0).length,
     traverses: state.traverse,
+    // Grains taken out by corrections in the audit that still stand.
+    voided: Object.values(state.voids).reduce((a, g) => a + g.length, 0),
     sittings: state.sitting,
     closedCleanly: state.closed,
     finishedAt: state.finishedAt,

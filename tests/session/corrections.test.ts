@@ -37,6 +37,8 @@ describe('corrections: void and restore', () => {
     expect(readLevel(path).state.counts.Alnus).toBe(1);
     const summary = JSON.parse(runExine(['summary', path, '--json']).stdout);
     expect(summary.pollenSum).toBe(5);
+    expect(summary.voided).toBe(1);
+    expect(runExine(['summary', path]).stdout).toMatch(/pollen sum 5 · 5 grains · .* · 1 grain voided in the audit\n/);
     const rows = parse(runExine(['export', path]).stdout, { columns: true }) as Record<string, string>[];
     expect(rows.find((r) => r.taxon === 'Alnus')!.count).toBe('1');
     expect(runExine(['verify', path]).code).toBe(0);

@@ -32,7 +32,7 @@ function textReport(s: LevelSummary): string[] {
   const lines = [
     `${where ? `${where} · ` : ''}level ${s.level}${s.depth === null ? '' : ` (depth ${s.depth})`} · slide ${s.slide ?? '–'}${s.analyst ? ` · ${s.analyst}` : ''}`,
     s.finishedAt ? `finished ${s.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
-    `pollen sum ${s.pollenSum} · ${plural(s.grains, 'grain')} · ${plural(s.types, 'type')} in the sum · ${plural(s.traverses, 'traverse')} · ${plural(s.sittings, 'sitting')}`,
+    `pollen sum ${s.pollenSum} · ${plural(s.grains, 'grain')} · ${plural(s.types, 'type')} in the sum · ${plural(s.traverses, 'traverse')} · ${plural(s.sittings, 'sitting')}${s.voided ? ` · ${plural(s.voided, 'grain')} voided in the audit` : ''}`,
     `groups: ${GROUPS.filter((g) => s.groups[g] > 0 || s.sumGroups.includes(g))
       .map((g) => `${g} ${s.groups[g]}${s.sumGroups.includes(g) ? '' : '*'}`)
       .join(' · ')}`,
