@@ -5,7 +5,7 @@ export interface TaxonBinding {
   readonly group: Group;
 }
 
-export const ACTION_NAMES = ['undo', 'traverse', 'note'] as const;
+export const ACTION_NAMES = ['undo', 'traverse', 'note', 'help', 'newType'] as const;
 export type ActionName = (typeof ACTION_NAMES)[number];
 
 /** Keys that are not printable characters, by the names a keymap file uses for them. */
@@ -19,7 +19,8 @@ export interface Keymap {
   readonly name: string;
   /** Taxon keys in the order the file lists them: the screen and exports keep this order. */
   readonly keys: Readonly<Record<string, TaxonBinding>>;
-  readonly actions: Readonly<Record<ActionName, KeyName>>;
+  /** null: the action has no key (its default key is a taxon key in this keymap). */
+  readonly actions: Readonly<Record<ActionName, KeyName | null>>;
   /** Groups whose grains make up the pollen sum. */
   readonly sum: readonly Group[];
 }
@@ -28,10 +29,17 @@ export const DEFAULT_ACTIONS: Readonly<Record<ActionName, KeyName>> = {
   undo: 'backspace',
   traverse: 'tab',
   note: 'enter',
+  help: '?',
+  newType: '=',
 };
 
-export function keyLabel(key: KeyName): string {
+/** Actions added after keymaps were first written: their default key yields to a taxon on it. */
+export const LATER_ACTIONS: ReadonlySet<ActionName> = new Set(['help', 'newType']);
+
+export function keyLabel(key: KeyName | null): string {
   switch (key) {
+    case null:
+      return '(no key)';
     case 'backspace':
       return 'Backspace';
     case 'tab':

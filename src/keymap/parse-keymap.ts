@@ -4,6 +4,7 @@ import { parseStrictJson } from './json-source.js';
 import {
   ACTION_NAMES,
   DEFAULT_ACTIONS,
+  LATER_ACTIONS,
   NAMED_KEYS,
   type ActionName,
   type Keymap,
@@ -78,8 +79,14 @@ export function checkKeymapValue(value: unknown, source: string): KeymapResult {
   }
   if (Object.keys(keys).length === 0) return fail('"keys" is empty; bind at least one taxon');
 
-  const actions: Record<ActionName, string> = { ...DEFAULT_ACTIONS };
-  for (const [name, key] of Object.entries(raw.actions ?? {})) {
+  const actions: Record<ActionName, string | null> = { ...DEFAULT_ACTIONS };
+  const given = raw.actions ?? {};
+  // A keymap written before help and new types existed may have a taxon on their default keys: the taxon keeps it.
+  for (const name of LATER_ACTIONS) {
+    const key = actions[name] as string;
+    if (!(name in given) && keys[key]) actions[name] = null;
+  }
+  for (const [name, key] of Object.entries(given)) {
     if (!(ACTION_NAMES as readonly string[]).includes(name)) {
       return fail(`unknown action "${name}" (expected one of ${ACTION_NAMES.join(', ')})`);
     }
@@ -93,6 +100,7 @@ export function checkKeymapValue(value: unknown, source: string): KeymapResult {
   const actionOfKey = new Map<string, ActionName>();
   for (const name of ACTION_NAMES) {
     const key = actions[name];
+    if (key === null) continue;
     const taxon = keys[key === 'space' ? ' ' : key];
     if (taxon) return fail(`key "${key}" is bound to both taxon "${taxon.taxon}" and action "${name}"; pick one`);
     const twin = actionOfKey.get(key);

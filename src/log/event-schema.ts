@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { GROUPS } from '../keymap/groups.js';
 import type { SessionEvent } from '../session/events.js';
 
 // Validation of lines read back from a session file. Fields written by a later exine
@@ -73,6 +74,13 @@ const note = z.object({
   grain: z.number().int().positive().nullable(),
   stage: z.object({ x: z.number(), y: z.number() }).nullable(),
 });
+const taxonEvent = z.object({
+  ...stamp,
+  type: z.literal('taxon'),
+  taxon: z.string().trim().min(1),
+  group: z.enum(GROUPS),
+  key: z.string().refine((k) => [...k].length === 1 && (k.codePointAt(0) ?? 0) >= 0x21, { message: 'a key is one printable character' }),
+});
 const sitting = z.object({ ...stamp, type: z.literal('sitting'), sitting: z.number().int().positive() });
 const ruleChange = z.object({ ...stamp, type: z.literal('rules'), rules, spike });
 const rulesMet = z.object({ ...stamp, type: z.literal('rules-met'), sum: count, grains: count, met: z.array(z.string()) });
@@ -104,6 +112,7 @@ export const eventSchema = z.discriminatedUnion('type', [
   undo,
   traverse,
   note,
+  taxonEvent,
   sitting,
   ruleChange,
   rulesMet,

@@ -12,3 +12,8 @@ export function ringStopSignal(stdout: NodeJS.WriteStream, gapMs = 160): void {
     timer.unref?.();
   }
 }
+
+/** One bell: a new type, or a break due. */
+export function ringOnce(stdout: NodeJS.WriteStream): void {
+  stdout.write(BEL);
+}

@@ -13,6 +13,12 @@ import { RecentEvents } from './recent-events.js';
 import { SumPanel, sumPanelHeight } from './sum-panel.js';
 import { themeFor } from './theme.js';
 import { TotalsTable, tableWidth, taxonWidthFor } from './totals-table.js';
+import { saturationCurve } from '../stats/accumulation.js';
+import { ringOnce } from './bell.js';
+import { HelpOverlay } from './help-overlay.js';
+import { rareLines, rareTypes, RareTypesPanel } from './rare-types.js';
+import { SaturationPanel, saturationHeight } from './saturation-panel.js';
+import type { InputMode } from '../session/input-mode.js';
 
 function useNow(intervalMs: number): number {
   const [now, setNow] = useState(() => Date.now());
@@ -38,8 +44,12 @@ export interface CountScreenProps {
   /** Terminal size; defaults to the real terminal's. */
   readonly columns?: number;
   readonly rows?: number;
-  /** Terminal bells for the stop signal (default on). */
+  /** Terminal bells: one for a new type, three for the stop signal, one for a break (default on). */
   readonly bell?: boolean;
+  /** Types with at most this many grains are listed as rare (default 2). */
+  readonly rareThreshold?: number;
+  /** Remind the analyst to rest the eyes after this many minutes of a sitting; null: never. */
+  readonly breakMinutes?: number | null;
 }
 
 /** Three bells, once per new rules-met event of this sitting (not for one already in the file). */
@@ -53,16 +63,53 @@ function useStopBell(metSeq: number | null, enabled: boolean): void {
   }, [metSeq, enabled, stdout]);
 }
 
-export function CountScreen({ session, columns, rows, bell = true }: CountScreenProps) {
+/** One bell when the number of types counted grows: a new type is on the slide. */
+function useNewTypeBell(types: number, enabled: boolean): void {
+  const { stdout } = useStdout();
+  const seen = useRef(types);
+  useEffect(() => {
+    if (types > seen.current && enabled) ringOnce(stdout);
+    seen.current = types;
+  }, [types, enabled, stdout]);
+}
+
+/** True once the sitting has run for `minutes`; one bell each time another such span has passed. */
+function useBreakReminder(elapsedMs: number, minutes: number | null, enabled: boolean): boolean {
+  const { stdout } = useStdout();
+  const span = minutes === null ? null : minutes * 60_000;
+  const due = span === null ? 0 : Math.floor(elapsedMs / span);
+  const rung = useRef(due);
+  useEffect(() => {
+    if (due > rung.current && enabled) ringOnce(stdout);
+    rung.current = due;
+  }, [due, enabled, stdout]);
+  return due > 0;
+}
+
+function promptOf(mode: InputMode | null): string | null {
+  if (mode?.kind === 'note') {
+    const on = mode.grain === null ? 'the level' : `#${mode.grain} ${mode.taxon ?? ''}`.trim();
+    return `Note on ${on} (Enter saves, Esc cancels, "@x,y" = stage position): ${mode.text}█`;
+  }
+  if (mode?.kind === 'new-type') return `New type as "name, group" (Enter counts one grain, Esc cancels): ${mode.text}█`;
+  return null;
+}
+
+export function CountScreen({ session, columns, rows, bell = true, rareThreshold = 2, breakMinutes = null }: CountScreenProps) {
   const { exit } = useApp();
   const terminal = useTerminalSize();
   const snapshot = useSyncExternalStore(session.subscribe, session.getSnapshot);
-  const { state } = snapshot;
+  const { state, mode } = snapshot;
   const report = useMemo(() => levelReport(state), [state]);
+  const curve = useMemo(() => saturationCurve(state), [state]);
+  const rare = useMemo(() => rareTypes(state, rareThreshold), [state, rareThreshold]);
   const { table } = report.stats;
-  useStopBell(state.lastRulesMet?.seq ?? null, bell);
   const theme = themeFor();
   const now = useNow(1000);
+  const sittingMs = now - Date.parse(state.sittingStartedAt);
+  useStopBell(state.lastRulesMet?.seq ?? null, bell);
+  useNewTypeBell(Object.keys(state.firstSeen).length, bell);
+  const breakDue = useBreakReminder(sittingMs, breakMinutes, bell);
 
   // Every key of a burst is applied in order against the session, never against a rendered value.
   useInput((input, key) => {
@@ -74,9 +121,10 @@ export function CountScreen({ session, columns, rows, bell = true }: CountScreen
 
   const width = columns ?? terminal.columns;
   const height = Math.max(12, (rows ?? terminal.rows) - 1);
+  const prompt = promptOf(mode);
   const status = snapshot.readOnly
     ? `READ-ONLY: ${snapshot.readOnly}`
-    : (snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '));
+    : (prompt ?? snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '));
   // The status takes the lines it needs (up to 3; word wrap wastes some of each line).
   const statusLines = Math.min(3, Math.max(1, Math.ceil([...status].length / Math.max(20, width - 12))));
   const met = report.rules.met;
@@ -84,13 +132,26 @@ export function CountScreen({ session, columns, rows, bell = true }: CountScreen
   const mainHeight = height - 3 - statusLines - (met ? 1 : 0);
   const taxonWidth = taxonWidthFor(width);
   const sideWidth = Math.max(20, width - tableWidth(taxonWidth) - 2);
-  // Recent events get what the sum panel leaves: one line for its margin, one for its title.
+  // A wide side splits in two columns: sum, rules and the curve; rare types and recent events.
+  const wide = sideWidth >= 56;
+  const colWidth = wide ? Math.floor((sideWidth - 2) / 2) : sideWidth;
+  const compactSum = !wide && mainHeight < 26;
+  const sumHeight = sumPanelHeight(table, state.rules.targetSum, compactSum);
   const rulesHeight = rulesPanelHeight(report.rules, report.stats.concentration);
-  const sideRoomForRecent = Math.max(1, mainHeight - sumPanelHeight(table, state.rules.targetSum) - rulesHeight - (rulesHeight ? 1 : 0) - 2);
+  const gap = mainHeight >= 24 ? 1 : 0;
+  const colALeft = mainHeight - sumHeight - (rulesHeight ? rulesHeight + gap : 0);
+  // The curve gets what is left in its column; in one narrow column recent events keep at least four lines.
+  const plotRows = Math.max(0, Math.min(wide ? 12 : 8, colALeft - gap - (wide ? 3 : 7)));
+  const legend = wide || plotRows >= 5;
+  const showCurve = plotRows >= 2;
+  const curveHeight = showCurve ? saturationHeight(plotRows, legend) + gap : 0;
+  const rareRoom = wide ? Math.max(3, Math.min(rare.length + 1, Math.floor(mainHeight / 2))) : 0;
+  const recentRoom = Math.max(1, (wide ? mainHeight - rareRoom - gap : colALeft - curveHeight - gap) - 1);
   const h = state.header;
   const where = [h.site, h.core].filter(Boolean).join(' ');
   const depth = h.depth === null ? '' : ` · depth ${h.depth}`;
   const a = state.keymap.actions;
+  const recent = <RecentEvents events={state.recent} room={recentRoom} width={colWidth} firstSeen={state.firstSeen} />;
 
   return (
     <Box flexDirection="column" width={width} height={height}>
@@ -99,34 +160,50 @@ export function CountScreen({ session, columns, rows, bell = true }: CountScreen
       </Text>
       <Text wrap="truncate-end">
         <Text bold>{`traverse ${state.traverse}`}</Text>
-        {` · sitting ${state.sitting} · ${formatDuration(now - Date.parse(state.sittingStartedAt))}`}
+        {` · sitting ${state.sitting} · ${formatDuration(sittingMs)}`}
+        {breakDue ? <Text bold color={theme.warning}>{` · time to rest your eyes (${breakMinutes} min)`}</Text> : null}
       </Text>
       {met ? (
         <Text bold inverse wrap="truncate-end">
           {fitBanner(stopBanner(state.rulesMet ? (state.lastRulesMet?.sum ?? null) : null), width)}
         </Text>
       ) : null}
-      <Box flexDirection="row" height={mainHeight}>
-        <TotalsTable table={table} room={mainHeight - 1} theme={theme} justCounted={lastGrainTaxon(state)} taxonWidth={taxonWidth} />
-        <Box flexDirection="column" marginLeft={2} width={sideWidth}>
-          <SumPanel table={table} target={state.rules.targetSum} theme={theme} width={sideWidth} />
-          {rulesHeight ? (
-            <Box marginTop={1}>
-              <RulesPanel report={report.rules} conc={report.stats.concentration} theme={theme} width={sideWidth} />
+      {mode?.kind === 'help' ? (
+        <HelpOverlay keymap={state.keymap} width={width} room={mainHeight} />
+      ) : (
+        <Box flexDirection="row" height={mainHeight}>
+          <TotalsTable table={table} room={mainHeight - 1} theme={theme} justCounted={lastGrainTaxon(state)} taxonWidth={taxonWidth} />
+          <Box flexDirection="row" marginLeft={2} width={sideWidth}>
+            <Box flexDirection="column" width={colWidth}>
+              <SumPanel table={table} target={state.rules.targetSum} theme={theme} width={colWidth} compact={compactSum} />
+              {rulesHeight ? (
+                <Box marginTop={gap}>
+                  <RulesPanel report={report.rules} conc={report.stats.concentration} theme={theme} width={colWidth} />
+                </Box>
+              ) : null}
+              {showCurve ? (
+                <Box marginTop={gap}>
+                  <SaturationPanel curve={curve} width={colWidth} plotRows={plotRows} legend={legend} />
+                </Box>
+              ) : null}
+              {wide ? null : <Box marginTop={gap}>{recent}</Box>}
             </Box>
-          ) : null}
-          <Box marginTop={1}>
-            <RecentEvents events={state.recent} room={sideRoomForRecent} width={sideWidth} />
+            {wide ? (
+              <Box flexDirection="column" width={colWidth} marginLeft={2}>
+                <RareTypesPanel lines={rareLines(rare, rareThreshold, colWidth, rareRoom)} width={colWidth} />
+                <Box marginTop={gap}>{recent}</Box>
+              </Box>
+            ) : null}
           </Box>
         </Box>
-      </Box>
+      )}
       <Box height={statusLines} overflow="hidden">
-        <Text color={snapshot.message?.tone === 'error' || snapshot.readOnly ? theme.error : theme.warning} wrap="wrap">
+        <Text color={snapshot.message?.tone === 'error' || snapshot.readOnly ? theme.error : prompt ? undefined : theme.warning} bold={prompt !== null} wrap="wrap">
           {status}
         </Text>
       </Box>
       <Text dimColor={theme.dim} wrap="truncate-end">
-        {`${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} traverse · Ctrl-F finish · Ctrl-C quit · * outside sum`}
+        {`${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} traverse · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new type · ${keyLabel(a.help)} help · Ctrl-F finish · Ctrl-C quit`}
       </Text>
     </Box>
   );

@@ -3,14 +3,16 @@ import { describeEvent } from '../session/describe-event.js';
 import type { SessionEvent } from '../session/events.js';
 import { fit } from '../text/cells.js';
 
-export function RecentEvents({ events, room, width }: { events: readonly SessionEvent[]; room: number; width: number }) {
+/** The last events, newest first; "★" marks the grain that brought a new type into the count. */
+export function RecentEvents({ events, room, width, firstSeen }: { events: readonly SessionEvent[]; room: number; width: number; firstSeen: Readonly<Record<string, number>> }) {
   const shown = events.slice(-Math.max(0, room)).reverse();
   return (
     <Box flexDirection="column" width={width}>
       <Text bold>Last recorded</Text>
-      {shown.map((e) => (
-        <Text key={e.seq}>{fit(`#${e.seq} ${describeEvent(e)}`, width)}</Text>
-      ))}
+      {shown.map((e) => {
+        const isNew = e.type === 'grain' && firstSeen[e.taxon] === e.seq;
+        return <Text key={e.seq} bold={isNew}>{fit(`#${e.seq}${isNew ? '★' : ' '}${describeEvent(e)}${isNew ? ' new' : ''}`, width)}</Text>;
+      })}
     </Box>
   );
 }

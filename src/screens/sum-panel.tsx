@@ -1,5 +1,16 @@
 import { Box, Text } from 'ink';
-import { GROUPS } from '../keymap/groups.js';
+import { GROUPS, type Group } from '../keymap/groups.js';
+
+const SHORT: Readonly<Record<Group, string>> = {
+  trees: 'Trees',
+  shrubs: 'Shrub',
+  herbs: 'Herbs',
+  spores: 'Spore',
+  aquatics: 'Aquat',
+  markers: 'Mark',
+  indeterminable: 'Indet',
+  other: 'Other',
+};
 import type { LevelTable } from '../stats/level-table.js';
 import { bar, fit, right } from '../text/cells.js';
 import type { Theme } from './theme.js';
@@ -11,12 +22,32 @@ function shownGroups(table: LevelTable) {
 }
 
 /** Lines the panel takes, so the screen can give the rest to other panels. */
-export function sumPanelHeight(table: LevelTable, target: number | null): number {
-  if (target === null) return 1 + shownGroups(table).length;
-  return 2 + (table.pollenSum >= target ? 1 : 0) + shownGroups(table).length;
+export function sumPanelHeight(table: LevelTable, target: number | null, compact = false): number {
+  const groups = compact ? Math.ceil(shownGroups(table).length / 2) : shownGroups(table).length;
+  if (target === null) return 1 + groups;
+  return 2 + (table.pollenSum >= target ? 1 : 0) + groups;
 }
 
-export function SumPanel({ table, target, theme, width }: { table: LevelTable; target: number | null; theme: Theme; width: number }) {
+/** "Trees 135 · 57%"-style cells: count, and a share for groups outside the sum (of sum + group). */
+function groupCell(table: LevelTable, g: Group, width: number): string {
+  const n = table.groupTotals[g];
+  const outside = !table.sumGroups.includes(g);
+  const share = outside && n > 0 ? ` ${((100 * n) / (table.pollenSum + n)).toFixed(0)}%` : '';
+  return `${fit(capital(g), Math.max(4, width - 6 - share.length - (outside ? 2 : 0)))} ${right(String(n), 5)}${share}${outside ? ' *' : ''}`;
+}
+
+export function SumPanel({ table, target, theme, width, compact = false }: { table: LevelTable; target: number | null; theme: Theme; width: number; compact?: boolean }) {
+  const groups = shownGroups(table);
+  const half = Math.floor((width - 1) / 2);
+  // Short of rows, two groups share a line, in short words.
+  const pairs: string[] = [];
+  if (compact) {
+    for (let i = 0; i < groups.length; i += 2) {
+      const cell = (g: Group | undefined) => (g ? `${fit(SHORT[g], half - 5)}${right(String(table.groupTotals[g]), 4)}${table.sumGroups.includes(g) ? ' ' : '*'}` : '');
+      // Five letters and four digits fit a 22-column side panel.
+      pairs.push(`${cell(groups[i])}${cell(groups[i + 1])}`);
+    }
+  }
   const reached = target !== null && table.pollenSum >= target;
   const barWidth = Math.max(6, Math.min(30, width - 7));
   return (
@@ -28,11 +59,9 @@ export function SumPanel({ table, target, theme, width }: { table: LevelTable; t
         </Text>
       )}
       {reached ? <Text color={theme.ok} bold>TARGET SUM REACHED</Text> : null}
-      {shownGroups(table).map((g) => (
-        <Text key={g}>
-          {`${fit(capital(g), 14)} ${right(String(table.groupTotals[g]), 5)}${table.sumGroups.includes(g) ? '' : ' *'}`}
-        </Text>
-      ))}
+      {compact
+        ? pairs.map((line, i) => <Text key={i}>{line}</Text>)
+        : groups.map((g) => <Text key={g}>{groupCell(table, g, width)}</Text>)}
     </Box>
   );
 }

@@ -1,5 +1,6 @@
 import type { Command } from '../keymap/resolve-key.js';
 import type { EventPayload } from './events.js';
+import type { InputMode } from './input-mode.js';
 import type { LevelState } from './level-state.js';
 
 export type Decision =
@@ -7,6 +8,7 @@ export type Decision =
   | { readonly kind: 'say'; readonly message: string }
   | { readonly kind: 'quit' }
   | { readonly kind: 'confirm-finish' }
+  | { readonly kind: 'open'; readonly mode: InputMode; readonly message: string | null }
   | { readonly kind: 'nothing' };
 
 /** The event a command should record in the current state, or why it records nothing. */
@@ -22,8 +24,14 @@ export function decide(state: LevelState, command: Command): Decision {
             : { kind: 'say', message: 'nothing to undo' };
         case 'traverse':
           return { kind: 'record', payload: { type: 'traverse', traverse: state.traverse + 1 } };
-        case 'note':
-          return { kind: 'say', message: 'notes are not in this version yet: write it down for now' };
+        case 'note': {
+          const last = state.stack;
+          return { kind: 'open', mode: { kind: 'note', grain: last?.seq ?? null, taxon: last?.taxon ?? null, text: '' }, message: null };
+        }
+        case 'help':
+          return { kind: 'open', mode: { kind: 'help' }, message: null };
+        case 'newType':
+          return { kind: 'open', mode: { kind: 'new-type', text: '' }, message: null };
         default:
           return command.action satisfies never;
       }

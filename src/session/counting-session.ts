@@ -3,6 +3,7 @@ import { AppendError, type SessionWriter } from '../log/session-writer.js';
 import type { EventPayload } from './events.js';
 import { applyEvents } from './fold.js';
 import type { LevelState } from './level-state.js';
+import type { InputMode } from './input-mode.js';
 import { planBurst, type Message } from './plan-burst.js';
 
 export interface Snapshot {
@@ -13,8 +14,8 @@ export interface Snapshot {
   readonly notice: string | null;
   readonly readOnly: string | null;
   readonly closed: boolean;
-  /** Set while the screen asks "finish this level?": the next key answers. */
-  readonly confirmingFinish: boolean;
+  /** Set while the screen asks a question, shows the help, or takes a typed line. */
+  readonly mode: InputMode | null;
 }
 
 /**
@@ -36,7 +37,7 @@ export class CountingSession {
       notice: notices.length ? notices.join(' · ') : null,
       readOnly: writer.readOnly,
       closed: false,
-      confirmingFinish: false,
+      mode: null,
     };
   }
 
@@ -68,9 +69,9 @@ export class CountingSession {
    */
   pressAll(keys: readonly KeyPress[]): 'quit' | undefined {
     if (this.snapshot.closed) return undefined;
-    const plan = planBurst(this.snapshot.state, this.snapshot.confirmingFinish, keys);
+    const plan = planBurst(this.snapshot.state, this.snapshot.mode, keys);
     if (plan.payloads.length > 0 && !this.commit(plan.payloads)) return undefined;
-    this.publish({ confirmingFinish: plan.confirmingFinish, ...(plan.message === undefined ? {} : { message: plan.message }) });
+    this.publish({ mode: plan.mode, ...(plan.message === undefined ? {} : { message: plan.message }) });
     return plan.quit ? 'quit' : undefined;
   }
 
@@ -86,7 +87,7 @@ export class CountingSession {
       return true;
     } catch (error) {
       if (!(error instanceof AppendError)) throw error;
-      this.publish({ message: { text: error.message, tone: 'error' }, confirmingFinish: false });
+      this.publish({ message: { text: error.message, tone: 'error' }, mode: null });
       return false;
     }
   }

@@ -13,7 +13,9 @@ export function describeEvent(event: SessionEvent): string {
     case 'traverse':
       return `traverse ${event.traverse} started`;
     case 'note':
-      return `note: ${event.text}`;
+      return `note${event.grain === null ? '' : ` on #${event.grain}`}${event.stage ? ` @${event.stage.x},${event.stage.y}` : ''}: ${event.text}`;
+    case 'taxon':
+      return `new type ${event.taxon} (${event.group}) on key ${event.key}`;
     case 'sitting':
       return `sitting ${event.sitting} started`;
     case 'rules':

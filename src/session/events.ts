@@ -1,3 +1,4 @@
+import type { Group } from '../keymap/groups.js';
 import type { Keymap } from '../keymap/keymap.js';
 import type { RuleSet } from '../rules/rule-set.js';
 import type { RuleName } from '../rules/evaluate-rules.js';
@@ -59,11 +60,20 @@ export interface TraversePayload {
   readonly traverse: number;
 }
 
+/** A note, tied to a grain (or to the level), with the stage position where that grain can be found again. */
 export interface NotePayload {
   readonly type: 'note';
   readonly text: string;
   readonly grain: number | null;
   readonly stage: { readonly x: number; readonly y: number } | null;
+}
+
+/** A type not in the keymap, given a free key while counting. */
+export interface TaxonPayload {
+  readonly type: 'taxon';
+  readonly taxon: string;
+  readonly group: Group;
+  readonly key: string;
 }
 
 export interface SittingPayload {
@@ -142,6 +152,7 @@ export type EventPayload =
   | UndoPayload
   | TraversePayload
   | NotePayload
+  | TaxonPayload
   | SittingPayload
   | RulesPayload
   | RulesMetPayload

@@ -28,6 +28,8 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     closed: false,
     finishedAt: null,
     repairs: 0,
+    notes: [],
+    addedTypes: [],
     ignored: [],
   };
 }
@@ -63,6 +65,11 @@ function withoutGrain(stack: GrainStack | null, seq: number): GrainStack | null 
   let rebuilt = s.below;
   for (let i = above.length - 1; i >= 0; i--) rebuilt = { ...(above[i] as GrainStack), below: rebuilt };
   return rebuilt;
+}
+
+function findGrain(stack: GrainStack | null, seq: number): GrainStack | undefined {
+  for (let s = stack; s && s.seq >= seq; s = s.below) if (s.seq === seq) return s;
+  return undefined;
 }
 
 function taxonOf(stack: GrainStack | null, seq: number): string | undefined {
@@ -199,8 +206,24 @@ function step(d: Draft, event: SessionEvent): void {
     case 'traverse':
       d.traverse = event.traverse;
       return;
-    case 'note':
+    case 'note': {
+      const noted = event.grain === null ? undefined : findGrain(d.stack, event.grain);
+      d.notes = [
+        ...d.notes,
+        { seq: event.seq, at: event.at, grain: event.grain, taxon: noted?.taxon ?? null, traverse: noted?.traverse ?? null, text: event.text, stage: event.stage },
+      ];
       return;
+    }
+    case 'taxon': {
+      const taken = d.keymap.keys[event.key] || Object.values(d.keymap.actions).includes(event.key) || Object.values(d.keymap.keys).some((b) => b.taxon === event.taxon);
+      if (taken) {
+        d.ignored.push(event.seq);
+        return;
+      }
+      d.keymap = { ...d.keymap, keys: { ...d.keymap.keys, [event.key]: { taxon: event.taxon, group: event.group } } };
+      d.addedTypes = [...d.addedTypes, event.taxon];
+      return;
+    }
     case 'sitting':
       d.sitting = event.sitting;
       d.sittingStartedAt = event.at;

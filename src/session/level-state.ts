@@ -48,8 +48,23 @@ export interface LevelState {
   /** When the analyst marked the level finished (the latest time), or null. */
   readonly finishedAt: string | null;
   readonly repairs: number;
+  /** Every note, in order. */
+  readonly notes: readonly NoteRecord[];
+  /** Types added while counting, in order (their keys are in `keymap`). */
+  readonly addedTypes: readonly string[];
   /** Events the fold could not apply (an undo of a grain that is not counted): kept, reported. */
   readonly ignored: readonly number[];
+}
+
+export interface NoteRecord {
+  readonly seq: number;
+  readonly at: string;
+  readonly grain: number | null;
+  /** The taxon and traverse of the grain noted, when there is one. */
+  readonly taxon: string | null;
+  readonly traverse: number | null;
+  readonly text: string;
+  readonly stage: { readonly x: number; readonly y: number } | null;
 }
 
 export const RECENT_EVENTS = 20;

@@ -20,12 +20,19 @@ describe('keymap files', () => {
     expect(lowland.sum).toEqual(['trees', 'shrubs', 'herbs']);
     const keypad = loadKeymap('keypad').keymap;
     expect(Object.keys(keypad.keys).every((k) => '0123456789.+-*/'.includes(k))).toBe(true);
-    expect(keypad.actions).toEqual({ undo: '-', traverse: '+', note: 'enter' });
+    expect(keypad.actions).toEqual({ undo: '-', traverse: '+', note: 'enter', help: '?', newType: '=' });
   });
 
-  it('defaults the actions to Backspace, Tab and Enter', () => {
+  it('defaults the actions to Backspace, Tab, Enter, ? (help) and = (new type)', () => {
     const keymap = ok('{"name":"x","keys":{"q":{"taxon":"Quercus","group":"trees"}}}');
-    expect(keymap.actions).toEqual({ undo: 'backspace', traverse: 'tab', note: 'enter' });
+    expect(keymap.actions).toEqual({ undo: 'backspace', traverse: 'tab', note: 'enter', help: '?', newType: '=' });
+  });
+
+  it('a keymap written with a taxon on ? or = keeps it; that action then has no key unless given one', () => {
+    const keymap = ok('{"name":"x","keys":{"?":{"taxon":"Unknown","group":"other"},"=":{"taxon":"Ilex","group":"shrubs"}}}');
+    expect([keymap.actions.help, keymap.actions.newType]).toEqual([null, null]);
+    expect(ok('{"name":"x","keys":{"?":{"taxon":"Unknown","group":"other"}},"actions":{"help":"h"}}').actions.help).toBe('h');
+    expect(parseKeymap('{"name":"x","keys":{"?":{"taxon":"Unknown","group":"other"}},"actions":{"help":"?"}}', 'k.json')).toMatchObject({ ok: false, message: expect.stringMatching(/key "\?" is bound to both taxon "Unknown" and action "help"/) });
   });
 
   it('keys are case-sensitive', () => {

@@ -6,7 +6,7 @@ import { FINISH_PROMPT, planBurst } from '../../src/session/plan-burst.js';
 import { TINY_KEYMAP, openPayload } from '../helpers/levels.js';
 
 const start = foldEvents({ ...openPayload(), seq: 1, at: '2026-11-02T09:00:00.000Z' } as OpenEvent, TINY_KEYMAP, []);
-const plan = (text: string, confirming = false) => planBurst(start, confirming, splitKeys(text, {}));
+const plan = (text: string, confirming = false) => planBurst(start, confirming ? { kind: 'confirm-finish' } : null, splitKeys(text, {}));
 
 describe('planning a burst of keys', () => {
   it('predicts seq numbers so an undo in the burst names the grain typed just before it', () => {
@@ -28,10 +28,10 @@ describe('planning a burst of keys', () => {
   });
 
   it('asks before finishing, and the answer may come in the same burst', () => {
-    expect(plan('a\x06')).toMatchObject({ confirmingFinish: true, quit: false, message: { text: FINISH_PROMPT } });
+    expect(plan('a\x06')).toMatchObject({ mode: { kind: 'confirm-finish' }, quit: false, message: { text: FINISH_PROMPT } });
     expect(plan('\x06y').payloads).toEqual([{ type: 'finish' }]);
     expect(plan('y', true)).toMatchObject({ quit: true, payloads: [{ type: 'finish' }] });
-    expect(plan('ab', true)).toMatchObject({ quit: false, confirmingFinish: false, payloads: [{ type: 'grain', taxon: 'Betula', traverse: 1, key: 'b' }] });
+    expect(plan('ab', true)).toMatchObject({ quit: false, mode: null, payloads: [{ type: 'grain', taxon: 'Betula', traverse: 1, key: 'b' }] });
   });
 
   it('says what it could not do and records nothing for it', () => {
@@ -39,4 +39,54 @@ describe('planning a burst of keys', () => {
     expect(plan('Z').message?.text).toMatch(/not in the keymap/);
     expect(plan('').message).toBeUndefined();
   });
+
+  it('the note key opens a line tied to the last grain; taxon keys type text and count nothing', () => {
+    const p = plan('ab\rcf. Alnus @12.5,88 \r');
+    expect(p.payloads).toEqual([
+      { type: 'grain', taxon: 'Alnus', traverse: 1, key: 'a' },
+      { type: 'grain', taxon: 'Betula', traverse: 1, key: 'b' },
+      { type: 'note', text: 'cf. Alnus', grain: 3, stage: { x: 12.5, y: 88 } },
+    ]);
+    expect(p.mode).toBeNull();
+    expect(p.message?.text).toBe('note recorded on #3 Betula');
+  });
+
+  it('a note still being typed stays open across bursts; Escape cancels it and records nothing', () => {
+    const open = plan('a\rhal');
+    expect(open.mode).toEqual({ kind: 'note', grain: 2, taxon: 'Alnus', text: 'hal' });
+    expect(open.payloads).toHaveLength(1);
+    const cancelled = planBurst(start, open.mode, splitKeys('f\x7f\x1baa', {}));
+    expect(cancelled.payloads).toEqual([
+      { type: 'grain', taxon: 'Alnus', traverse: 1, key: 'a' },
+      { type: 'grain', taxon: 'Alnus', traverse: 1, key: 'a' },
+    ]);
+  });
+
+  it('a new type gets the next free key, is recorded, and its grain counted', () => {
+    const p = plan('=Ilex aquifolium, shr\r');
+    expect(p.payloads).toEqual([
+      { type: 'taxon', taxon: 'Ilex aquifolium', group: 'shrubs', key: 'A' },
+      { type: 'grain', taxon: 'Ilex aquifolium', traverse: 1, key: 'A' },
+    ]);
+    expect(p.message?.text).toBe('new type Ilex aquifolium (shrubs) on key A: one grain counted');
+    // Its key counts it from then on, in the same burst too.
+    expect(plan('=Ilex, shrubs\rAA').payloads.filter((e) => e.type === 'grain')).toHaveLength(3);
+  });
+
+  it('a new type without a group, or with a name already on a key, says so', () => {
+    const p = plan('=Ilex\r');
+    expect(p.payloads).toEqual([]);
+    expect(p.mode).toEqual({ kind: 'new-type', text: 'Ilex' });
+    expect(p.message?.text).toMatch(/add its group after a comma: trees, shrubs/);
+    expect(plan('=Alnus, trees\r').payloads).toEqual([{ type: 'grain', taxon: 'Alnus', traverse: 1, key: 'a' }]);
+  });
+
+  it('the help opens with ? and any key closes it, counting nothing', () => {
+    const p = plan('?a');
+    expect(p.payloads).toEqual([]);
+    expect(p.mode).toBeNull();
+    expect(plan('?').mode).toEqual({ kind: 'help' });
+    expect(plan('?\x03').quit).toBe(true);
+  });
 });
+

@@ -1,0 +1,42 @@
+import { Box, Text } from 'ink';
+import type { LevelState, NoteRecord } from '../session/level-state.js';
+import { fit } from '../text/cells.js';
+
+export interface RareType {
+  readonly taxon: string;
+  readonly count: number;
+  readonly notes: readonly NoteRecord[];
+}
+
+/** Types with at most `threshold` grains counted, rarest and earliest first, with their notes. */
+export function rareTypes(state: LevelState, threshold: number): RareType[] {
+  return Object.entries(state.counts)
+    .filter(([, c]) => c > 0 && c <= threshold)
+    .sort(([a, ca], [b, cb]) => ca - cb || (state.firstSeen[a] ?? 0) - (state.firstSeen[b] ?? 0))
+    .map(([taxon, count]) => ({ taxon, count, notes: state.notes.filter((n) => n.taxon === taxon) }));
+}
+
+function noteWords(n: NoteRecord): string {
+  return `${n.traverse === null ? '' : `t${n.traverse} `}${n.stage ? `@${n.stage.x},${n.stage.y} ` : ''}${n.text}`.trim();
+}
+
+export function rareLines(rare: readonly RareType[], threshold: number, width: number, room: number): string[] {
+  const lines = [fit(`Rare types (≤${threshold})`, width)];
+  if (rare.length === 0) return [...lines, fit('none yet', width)];
+  for (const r of rare) {
+    lines.push(fit(`${r.count} ${r.taxon}${r.notes.length ? `: ${noteWords(r.notes.at(-1) as NoteRecord)}` : ''}`, width));
+  }
+  return lines.length > room ? [...lines.slice(0, room - 1), fit(`… ${lines.length - room + 1} more`, width)] : lines;
+}
+
+export function RareTypesPanel({ lines, width }: { lines: readonly string[]; width: number }) {
+  return (
+    <Box flexDirection="column" width={width}>
+      {lines.map((line, i) => (
+        <Text key={i} bold={i === 0}>
+          {line}
+        </Text>
+      ))}
+    </Box>
+  );
+}
