@@ -3,6 +3,7 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['tests/**/*.test.{ts,tsx}'],
+    setupFiles: ['tests/helpers/isolate-config.ts'],
     // Crash and lock tests start real child processes; keep the pool small on 2 cores.
     maxWorkers: 2,
     testTimeout: 20_000,

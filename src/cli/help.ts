@@ -11,6 +11,7 @@ Commands
   export FILE…   levels as CSV (long or wide)
   verify FILE    check a session file's integrity chain
   keys PATH      check a keymap and show its layout
+  prefs          show or set preferences (bell, rare, break, keymap, analyst)
 
 Run "exine <command> --help" for the options of one command.`;
 
@@ -23,15 +24,17 @@ keymap and level details given; an existing FILE is resumed with the keymap
 and details recorded in it.
 
 Options
-  --keymap PATH|NAME  keymap for a new level (default: temperate-lowland;
-                      bundled: temperate-lowland, keypad)
+  --keymap PATH|NAME  keymap for a new level (default: the keymap preference,
+                      else temperate-lowland; bundled: temperate-lowland, keypad)
   --level L           level label (default: the file name)
   --depth D           depth of the level in the core (a number, e.g. cm)
   --site S            site name
   --core C            core label
   --slide S           slide label
-  --analyst A         who counts
-  --quiet             no terminal bells
+  --analyst A         who counts (default: the analyst preference)
+  --quiet             no terminal bells (preference: bell)
+  --rare N            list types with at most N grains as rare (preference: rare)
+  --break MIN|off     remind to rest the eyes after MIN minutes (preference: break)
   -h, --help          this help
 
 Stop rules (recorded in FILE; on resume a flag changes only its own rule,
@@ -59,8 +62,11 @@ Exotic marker spike (for concentration; recorded in FILE)
 
 Keys
   taxon keys count one grain each; Backspace undoes the last grain; Tab starts
-  the next traverse (the keymap may move these); Ctrl-F then y marks the level
-  finished and quits; Ctrl-C quits (every grain is on disk already).
+  the next traverse; Enter writes a note on the last grain ("@12.4,88.1 cf.
+  Tilia" records the stage position); = adds a type that is not in the keymap
+  ("Ilex aquifolium, shrubs") and counts it; ? shows the keymap (the keymap may
+  move these); Ctrl-F then y marks the level finished and quits; Ctrl-C quits
+  (every grain is on disk already).
   When the stop rules are met the screen says STOP RULES MET and rings three
   bells; counting goes on until you finish.
 
@@ -111,14 +117,15 @@ Options
                its standard error; give it more than once for several N
   -h, --help   this help`,
   export: `Usage
-  exine export FILE… [--format long|wide] [--out PATH] [--force]
+  exine export FILE… [--format long|wide|notes] [--out PATH] [--force]
 
 Writes levels as CSV (RFC 4180, UTF-8, header row). long: one row per level
-and taxon, with percentages and intervals. wide: one row per level, one count
-column per taxon, levels in depth order.
+and taxon, with percentages, intervals and marker concentration. wide: one row
+per level, one count column per taxon, levels in depth order. notes: one row
+per note, with the grain's taxon, traverse and stage position.
 
 Options
-  --format F  long (default) or wide
+  --format F  long (default), wide or notes
   --out PATH  write to PATH (atomically) instead of standard output
   --force     replace PATH if it exists
   -h, --help  this help
@@ -131,6 +138,27 @@ Examples
 Checks every line of a session file: valid JSON, consecutive seq, the hash
 chain, event fields, timestamps in order. Exit 0 when intact; exit 1 naming
 the first bad line and what is wrong.`,
+  prefs: `Usage
+  exine prefs                  show every preference, its value and whether it is set
+  exine prefs set NAME VALUE   set one
+  exine prefs unset NAME       back to the default
+  exine prefs path             where they are stored
+
+Preferences
+  bell      on | off      terminal bells: one for a new type, three when the
+                          stop rules are met, one for a break (default on)
+  rare      N             types with at most N grains are listed as rare (2)
+  break     MIN | off     remind to rest the eyes after MIN minutes of a
+                          sitting (default 50; common practice for long
+                          microscope work)
+  keymap    NAME | PATH   keymap for new levels (temperate-lowland)
+  analyst   NAME | off    recorded as the analyst of new levels
+
+Flags of exine count override preferences; preferences override the defaults.
+
+Examples
+  exine prefs set analyst "R. Fern"
+  exine prefs set break off`,
   keys: `Usage
   exine keys PATH|NAME
 

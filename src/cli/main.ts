@@ -12,6 +12,7 @@ const COMMANDS: Readonly<Record<string, () => Promise<Command>>> = {
   export: async () => (await import('./commands/export.js')).exportCommand,
   verify: async () => (await import('./commands/verify.js')).verifyCommand,
   keys: async () => (await import('./commands/keys.js')).keysCommand,
+  prefs: async () => (await import('./commands/prefs.js')).prefsCommand,
 };
 
 export async function main(argv: string[]): Promise<number> {

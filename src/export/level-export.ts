@@ -113,3 +113,17 @@ export function wideTable(levels: readonly ExportLevel[]): { columns: string[]; 
   });
   return { columns, rows };
 }
+
+export const NOTE_COLUMNS = ['level', 'depth', 'site', 'core', 'slide', 'note_seq', 'at', 'grain_seq', 'taxon', 'traverse', 'stage_x', 'stage_y', 'text', 'source'] as const;
+
+/** One row per note: where the grain is (traverse, stage position) and what was said of it. */
+export function noteRows(levels: readonly ExportLevel[]): Cell[][] {
+  const rows: Cell[][] = [];
+  for (const { state, source } of orderLevels(levels)) {
+    const h = state.header;
+    for (const n of state.notes) {
+      rows.push([h.level, h.depth, h.site, h.core, h.slide, n.seq, n.at, n.grain, n.taxon, n.traverse, n.stage?.x ?? null, n.stage?.y ?? null, n.text, source]);
+    }
+  }
+  return rows;
+}

@@ -11,9 +11,9 @@ const SIGNALS = { SIGINT: 2, SIGHUP: 1, SIGTERM: 15 } as const;
  * synchronous shutdown for every way out: close event, lock released, Ink
  * unmounted (raw mode off, cursor back). Grains are on disk already.
  */
-export async function runCountScreen(opened: OpenedLevel, options: { bell?: boolean } = {}): Promise<number> {
+export async function runCountScreen(opened: OpenedLevel, options: { bell?: boolean; rareThreshold?: number; breakMinutes?: number | null } = {}): Promise<number> {
   const session = new CountingSession(opened.writer, opened.state, opened.notices);
-  const instance = render(<CountScreen session={session} bell={options.bell ?? true} />, { exitOnCtrlC: false, patchConsole: false });
+  const instance = render(<CountScreen session={session} bell={options.bell ?? true} rareThreshold={options.rareThreshold ?? 2} breakMinutes={options.breakMinutes ?? null} />, { exitOnCtrlC: false, patchConsole: false });
   let exitCode = 0;
   const stop = (code: number) => {
     session.shutdown();

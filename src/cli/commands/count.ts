@@ -9,6 +9,8 @@ import { createLevel, resumeLevel, type OpenedLevel } from '../../session/sessio
 import { drawLiveOnThisTerminal } from '../interactive-terminal.js';
 import { finiteNumber, parseFlags } from '../parse-flags.js';
 import { RULE_OPTIONS, rulesFromFlags, spikeFromFlags } from '../rule-flags.js';
+import { parsePref, type Preferences } from '../../prefs/pref-values.js';
+import { readPreferences } from '../../prefs/preferences.js';
 
 const OPTIONS = {
   keymap: { type: 'string' },
@@ -19,6 +21,8 @@ const OPTIONS = {
   slide: { type: 'string' },
   analyst: { type: 'string' },
   quiet: { type: 'boolean' },
+  rare: { type: 'string' },
+  break: { type: 'string' },
   ...RULE_OPTIONS,
 } as const;
 
@@ -51,7 +55,13 @@ export function requireTerminal(command: string): void {
 }
 
 /** Open or create the level for counting; the caller runs the screen. */
-export function openForCounting(path: string, flags: Record<string, string | undefined>, check: () => void = () => {}): OpenedLevel {
+/** What preferences supply when a flag is not given, for a new level. */
+export interface LevelDefaults {
+  readonly keymap?: string;
+  readonly analyst?: string | null;
+}
+
+export function openForCounting(path: string, flags: Record<string, string | undefined>, check: () => void = () => {}, defaults: LevelDefaults = {}): OpenedLevel {
   const depth = finiteNumber('count', 'depth', flags.depth);
   const given: Partial<LevelInfo> = {
     level: flags.level,
@@ -74,14 +84,14 @@ export function openForCounting(path: string, flags: Record<string, string | und
       },
     });
   }
-  const { keymap } = loadKeymap(flags.keymap ?? DEFAULT_KEYMAP);
+  const { keymap } = loadKeymap(flags.keymap ?? defaults.keymap ?? DEFAULT_KEYMAP);
   const info: LevelInfo = {
     level: given.level ?? basename(path, extname(path)),
     depth: depth ?? null,
     site: given.site ?? null,
     core: given.core ?? null,
     slide: given.slide ?? null,
-    analyst: given.analyst ?? null,
+    analyst: given.analyst ?? defaults.analyst ?? null,
   };
   const spike = spikeFromFlags(flags, null);
   const rules = rulesFromFlags(flags, keymap, null, spike) as NonNullable<ReturnType<typeof rulesFromFlags>>;
@@ -89,13 +99,33 @@ export function openForCounting(path: string, flags: Record<string, string | und
   return createLevel(path, { info, keymap, rules, spike });
 }
 
+export interface ScreenOptions {
+  readonly bell: boolean;
+  readonly rareThreshold: number;
+  readonly breakMinutes: number | null;
+}
+
+/** Flags override preferences, preferences override the defaults. */
+export function screenOptions(prefs: Preferences, flags: { quiet?: boolean | undefined; rare?: string | undefined; break?: string | undefined }): ScreenOptions {
+  const pick = <N extends 'rare' | 'break'>(name: N): Preferences[N] => {
+    const text = flags[name];
+    if (text === undefined) return prefs[name];
+    const parsed = parsePref(name, text);
+    if (!parsed.ok) throw new UsageError(`exine count: --${parsed.message}`);
+    return parsed.value as Preferences[N];
+  };
+  return { bell: flags.quiet ? false : prefs.bell, rareThreshold: pick('rare'), breakMinutes: pick('break') };
+}
+
 export async function countCommand(args: string[]): Promise<number> {
   const { values, positionals } = parseFlags('count', args, OPTIONS);
   if (positionals.length !== 1) throw new UsageError('exine count: give one session FILE (see exine count --help)');
   const path = resolve(positionals[0] as string);
-  const { quiet, ...flags } = values;
-  const opened = openForCounting(path, flags as Record<string, string | undefined>, () => requireTerminal('count'));
+  const { quiet, rare, break: rest, ...flags } = values;
+  const { prefs } = readPreferences();
+  const screen = screenOptions(prefs, { quiet, rare, break: rest });
+  const opened = openForCounting(path, flags as Record<string, string | undefined>, () => requireTerminal('count'), prefs);
   drawLiveOnThisTerminal();
   const { runCountScreen } = await import('../../screens/run-count-screen.js');
-  return runCountScreen(opened, { bell: !quiet });
+  return runCountScreen(opened, screen);
 }

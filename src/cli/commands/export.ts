@@ -2,7 +2,7 @@ import { existsSync } from 'node:fs';
 import { basename, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
 import { toCsv } from '../../export/csv-text.js';
-import { LONG_COLUMNS, longRows, orderLevels, wideTable, type ExportLevel } from '../../export/level-export.js';
+import { LONG_COLUMNS, longRows, NOTE_COLUMNS, noteRows, orderLevels, wideTable, type ExportLevel } from '../../export/level-export.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { plural } from '../../text/cells.js';
 import { readLevel } from '../../session/session-files.js';
@@ -17,8 +17,8 @@ const OPTIONS = {
 export function exportCommand(args: string[]): number {
   const { values, positionals } = parseFlags('export', args, OPTIONS);
   if (positionals.length === 0) throw new UsageError('exine export: give at least one session FILE (see exine export --help)');
-  if (values.format !== 'long' && values.format !== 'wide') {
-    throw new UsageError(`exine export: --format must be long or wide, not "${values.format}"`);
+  if (values.format !== 'long' && values.format !== 'wide' && values.format !== 'notes') {
+    throw new UsageError(`exine export: --format must be long, wide or notes, not "${values.format}"`);
   }
   const out = values.out === undefined ? null : resolve(values.out);
   if (out && existsSync(out) && !values.force) throw new ExineError(`${values.out} already exists; add --force to replace it`);
@@ -30,7 +30,9 @@ export function exportCommand(args: string[]): number {
   const csv =
     values.format === 'wide'
       ? (({ columns, rows }) => toCsv(columns, rows))(wideTable(levels))
-      : toCsv(LONG_COLUMNS, longRows(orderLevels(levels)));
+      : values.format === 'notes'
+        ? toCsv(NOTE_COLUMNS, noteRows(levels))
+        : toCsv(LONG_COLUMNS, longRows(orderLevels(levels)));
   if (out) {
     writeFileAtomic(out, csv, values.force === true);
     process.stderr.write(`exine: wrote ${plural(levels.length, 'level')} to ${values.out}\n`);

@@ -1,0 +1,41 @@
+import { UsageError } from '../../errors.js';
+import { formatPref, parsePref, PREF_HELP, PREF_NAMES, type PrefName } from '../../prefs/pref-values.js';
+import { clearPreference, readPreferences, writePreference } from '../../prefs/preferences.js';
+import { fit } from '../../text/cells.js';
+import { parseFlags } from '../parse-flags.js';
+
+const nameOf = (text: string | undefined): PrefName => {
+  if (text && (PREF_NAMES as string[]).includes(text)) return text as PrefName;
+  throw new UsageError(`exine prefs: ${text ? `unknown preference "${text}"` : 'name a preference'} (one of ${PREF_NAMES.join(', ')})`);
+};
+
+export function prefsCommand(args: string[]): number {
+  const { positionals } = parseFlags('prefs', args, {});
+  const [verb, name, ...rest] = positionals;
+  if (verb === undefined || verb === 'show') {
+    const { prefs, set, path } = readPreferences();
+    const lines = PREF_NAMES.map((n) => `${fit(n, 8)} ${fit(formatPref(n, prefs[n]), 20)} ${set.has(n) ? 'set   ' : 'default'}  ${PREF_HELP[n]}`);
+    process.stdout.write(`${lines.join('\n')}\n(stored in ${path}; flags of exine count override these)\n`);
+    return 0;
+  }
+  if (verb === 'path') {
+    process.stdout.write(`${readPreferences().path}\n`);
+    return 0;
+  }
+  if (verb === 'set') {
+    const pref = nameOf(name);
+    if (rest.length === 0) throw new UsageError(`exine prefs: give a value for ${pref} (${PREF_HELP[pref]})`);
+    const parsed = parsePref(pref, rest.join(' '));
+    if (!parsed.ok) throw new UsageError(`exine prefs: ${parsed.message}`);
+    writePreference(pref, parsed.value);
+    process.stdout.write(`${pref} = ${formatPref(pref, parsed.value)}\n`);
+    return 0;
+  }
+  if (verb === 'unset') {
+    const pref = nameOf(name);
+    clearPreference(pref);
+    process.stdout.write(`${pref} is back to its default\n`);
+    return 0;
+  }
+  throw new UsageError(`exine prefs: unknown action "${verb}" (show, set NAME VALUE, unset NAME, path)`);
+}
