@@ -25,6 +25,8 @@ interface DemoLevel {
   readonly uneven?: { readonly taxon: string; readonly traverses: readonly number[]; readonly factor: number };
   /** Things an audit should find: a double press, an interruption, and corrections made days later. */
   readonly auditTrail?: boolean;
+  /** A type the keymap does not have, added while counting at this pollen sum. */
+  readonly added?: { readonly taxon: string; readonly group: 'trees' | 'shrubs' | 'herbs'; readonly atSum: number };
 }
 
 // An invented marker batch; a real one comes with its own figures, entered by the analyst.
@@ -35,15 +37,16 @@ const LEVELS: readonly DemoLevel[] = [
   { file: 'km1-012cm.jsonl', depth: 12, sum: 512, finished: true, start: '2026-10-05T08:40:00.000Z',
     shares: { Quercus: 9, Betula: 6, Alnus: 11, Pinus: 4, Corylus: 8, Calluna: 9, Poaceae: 24, Cyperaceae: 6, 'Plantago lanceolata': 8, Rumex: 4, Asteraceae: 3, Artemisia: 1, Pteridium: 5, Sphagnum: 3, 'Lycopodium (exotic marker)': 7, Indeterminable: 3, Charcoal: 4 } },
   { file: 'km1-036cm.jsonl', depth: 36, sum: 505, finished: true, start: '2026-10-06T09:05:00.000Z', auditTrail: true,
-    shares: { Quercus: 18, Betula: 5, Alnus: 17, Ulmus: 2, Tilia: 3, Fraxinus: 3, Fagus: 1, Corylus: 16, Salix: 2, Calluna: 4, Hedera: 1, Poaceae: 12, Cyperaceae: 4, 'Plantago lanceolata': 3, Filipendula: 2, Pteridium: 3, Polypodium: 2, Nymphaea: 1, 'Lycopodium (exotic marker)': 8, Indeterminable: 3 } },
+    shares: { Quercus: 18, Betula: 5, Alnus: 17, Ulmus: 2, Tilia: 3, Fraxinus: 3, Fagus: 1, Corylus: 16, Salix: 2, Calluna: 4, Hedera: 1, Poaceae: 12, Cyperaceae: 4, 'Plantago lanceolata': 3, Filipendula: 2, Pteridium: 3, Polypodium: 2, Nymphaea: 1, 'Lycopodium (exotic marker)': 8, 'Indet. corroded': 1.5, 'Indet. crumpled': 1, 'Indet. broken': 0.5 } },
   { file: 'km1-060cm.jsonl', depth: 60, sum: 520, finished: true, start: '2026-10-07T08:30:00.000Z',
     shares: { Quercus: 22, Betula: 4, Alnus: 16, Ulmus: 7, Tilia: 6, Fraxinus: 3, Pinus: 3, Corylus: 22, Salix: 1, Hedera: 1, Poaceae: 6, Cyperaceae: 3, Filipendula: 1, Ranunculaceae: 1, Polypodium: 3, Nymphaea: 1, 'Lycopodium (exotic marker)': 9, Indeterminable: 2 } },
   // The half-counted level is counted to precision and coverage goals instead of a fixed sum.
   { file: 'km1-084cm.jsonl', depth: 84, sum: 236, finished: false, start: '2026-10-08T13:10:00.000Z',
     rules: { ...NO_RULES, precision: { halfWidth: 4, share: 10, taxa: null }, coverage: 0.98, markers: 40, minSum: 300 },
+    added: { taxon: 'Ilex aquifolium', group: 'shrubs', atSum: 150 },
     shares: { Quercus: 12, Betula: 12, Alnus: 6, Ulmus: 9, Pinus: 14, Corylus: 26, Salix: 3, Poaceae: 6, Cyperaceae: 3, Artemisia: 1, Filipendula: 2, Tilia: 0.6, Fraxinus: 0.4, Hedera: 0.3, Rumex: 0.4, Ranunculaceae: 0.3, Polypodium: 2, Pteridium: 1, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
   { file: 'km1-108cm.jsonl', depth: 108, sum: 501, finished: true, start: '2026-10-09T08:50:00.000Z', uneven: { taxon: 'Pinus', traverses: [1, 12], factor: 4 },
-    shares: { Betula: 38, Pinus: 24, Salix: 6, Corylus: 3, Poaceae: 12, Cyperaceae: 8, Artemisia: 5, Amaranthaceae: 2, Rumex: 1, Sphagnum: 2, 'Lycopodium (exotic marker)': 12, Indeterminable: 4 } },
+    shares: { Betula: 38, Pinus: 24, Salix: 6, Corylus: 3, Poaceae: 12, Cyperaceae: 8, Artemisia: 5, Amaranthaceae: 2, Rumex: 1, Sphagnum: 2, 'Lycopodium (exotic marker)': 12, 'Indet. corroded': 2, 'Indet. degraded': 1, 'Indet. concealed': 1 } },
 ];
 
 function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
@@ -112,6 +115,20 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
     lastGrains.push(s);
     inTraverse++;
     if (inSum.has(taxon)) sum++;
+    // A rare type's first grain gets a note with the stage position, so it can be found again.
+    if (inSum.has(taxon) && (state as LevelState | null)?.firstSeen[taxon] === s && (level.shares[taxon] ?? 0) < 1) {
+      const x = (5 + random() * 40).toFixed(1);
+      const y = (80 + random() * 25).toFixed(1);
+      write({ type: 'note', text: random() < 0.5 ? 'well preserved, photographed' : `cf. ${taxon}, check at 1000x`, grain: s, stage: { x: Number(x), y: Number(y) } }, 25_000);
+    }
+    if (level.added && sum === level.added.atSum) {
+      const { taxon: name, group } = level.added;
+      write({ type: 'taxon', taxon: name, group, key: 'A' }, 30_000);
+      const g = write({ type: 'grain', taxon: name, traverse, key: 'A' }, 2_000);
+      lastGrains.push(g);
+      sum++;
+      write({ type: 'note', text: 'not in the keymap; leaf-margin spines seen on a loose fragment nearby', grain: g, stage: { x: 21.7, y: 93.2 } }, 40_000);
+    }
     if (random() < 0.012) {
       const of = lastGrains.pop() as number;
       write({ type: 'undo', of }, 900 + random() * 1_500);

@@ -45,12 +45,12 @@ describe('the read-only commands on the demo core', () => {
     expect(run.code).toBe(0);
     expect(run.stdout).toMatch(/^Kestrel Mere KM-1 · level KM1-84 \(depth 84\)/);
     expect(run.stdout).toMatch(/not finished yet/);
-    expect(run.stdout).toMatch(/pollen sum 236 · 280 grains · 15 types in the sum · 6 traverses · 1 sitting\n/);
-    expect(run.stdout).toMatch(/groups: trees 135 · shrubs 67 · herbs 34 · spores 10\* · markers 30\*/);
+    expect(run.stdout).toMatch(/pollen sum 236 · 267 grains · 15 types in the sum · 6 traverses · 1 sitting\n/);
+    expect(run.stdout).toMatch(/groups: trees 143 · shrubs 73 · herbs 20 · spores 11\* · markers 17\* · indeterminable 3\*/);
     expect(run.stdout).toMatch(/stop rules: ±4 points for taxa ≥ 10% and coverage 0\.98 and 40 markers, with a pollen sum of at least 300 — not met/);
-    expect(run.stdout).toMatch(/coverage\s+0\.9873 of 0\.9800\s+met/);
-    expect(run.stdout).toMatch(/concentration 98333 grains\/cm³ \(±19\.7%, 95% 67079–148999\) from 30 markers/);
-    expect(run.stdout).toMatch(/Corylus\s+shrubs\s+57\s+24\.2\s+19\.1–30\.0\s+18\.8–30\.1/);
+    expect(run.stdout).toMatch(/coverage\s+0\.9831 of 0\.9800\s+met/);
+    expect(run.stdout).toMatch(/concentration 173529 grains\/cm³ \(±25\.3%, 95% 106090–302942\) from 17 markers/);
+    expect(run.stdout).toMatch(/Corylus\s+shrubs\s+65\s+27\.5\s+22\.2–33\.6\s+21\.9–33\.7/);
   });
 
   it('export --format wide: one row per level in depth order, one column per taxon', () => {
