@@ -124,7 +124,9 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   const prompt = promptOf(mode);
   const status = snapshot.readOnly
     ? `READ-ONLY: ${snapshot.readOnly}`
-    : (prompt ?? snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '));
+    : prompt
+      ? `${snapshot.message ? `${snapshot.message.text} · ` : ''}${prompt}`
+      : (snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '));
   // The status takes the lines it needs (up to 3; word wrap wastes some of each line).
   const statusLines = Math.min(3, Math.max(1, Math.ceil([...status].length / Math.max(20, width - 12))));
   const met = report.rules.met;
@@ -134,7 +136,7 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   const sideWidth = Math.max(20, width - tableWidth(taxonWidth) - 2);
   // A wide side splits in two columns: sum, rules and the curve; rare types and recent events.
   const wide = sideWidth >= 56;
-  const colWidth = wide ? Math.floor((sideWidth - 2) / 2) : sideWidth;
+  const colWidth = wide ? Math.floor((sideWidth - 3) / 2) : sideWidth;
   const compactSum = !wide && mainHeight < 26;
   const sumHeight = sumPanelHeight(table, state.rules.targetSum, compactSum);
   const rulesHeight = rulesPanelHeight(report.rules, report.stats.concentration);
@@ -145,7 +147,8 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   const legend = wide || plotRows >= 5;
   const showCurve = plotRows >= 2;
   const curveHeight = showCurve ? saturationHeight(plotRows, legend) + gap : 0;
-  const rareRoom = wide ? Math.max(3, Math.min(rare.length + 1, Math.floor(mainHeight / 2))) : 0;
+  const rareAll = wide ? rareLines(rare, rareThreshold, colWidth, Number.POSITIVE_INFINITY) : [];
+  const rareRoom = wide ? Math.max(3, Math.min(rareAll.length, Math.floor(mainHeight / 2))) : 0;
   const recentRoom = Math.max(1, (wide ? mainHeight - rareRoom - gap : colALeft - curveHeight - gap) - 1);
   const h = state.header;
   const where = [h.site, h.core].filter(Boolean).join(' ');

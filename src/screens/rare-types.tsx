@@ -23,8 +23,10 @@ function noteWords(n: NoteRecord): string {
 export function rareLines(rare: readonly RareType[], threshold: number, width: number, room: number): string[] {
   const lines = [fit(`Rare types (≤${threshold})`, width)];
   if (rare.length === 0) return [...lines, fit('none yet', width)];
+  // A note goes on its own line under its type: the stage position must be readable whole.
   for (const r of rare) {
-    lines.push(fit(`${r.count} ${r.taxon}${r.notes.length ? `: ${noteWords(r.notes.at(-1) as NoteRecord)}` : ''}`, width));
+    lines.push(fit(`${r.count} ${r.taxon}`, width));
+    for (const n of r.notes) lines.push(fit(`  ${noteWords(n)}`, width));
   }
   return lines.length > room ? [...lines.slice(0, room - 1), fit(`… ${lines.length - room + 1} more`, width)] : lines;
 }

@@ -1,0 +1,211 @@
+import { readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { render } from 'ink-testing-library';
+import { parse } from 'csv-parse/sync';
+import { describe, expect, it } from 'vitest';
+import { scanLog } from '../../src/log/scan-log.js';
+import { CountScreen } from '../../src/screens/count-screen.js';
+import { CountingSession } from '../../src/session/counting-session.js';
+import { readLevel, resumeLevel } from '../../src/session/session-files.js';
+import { TINY_KEYMAP, grain, newLevelFile, openPayload, timedSessionText } from '../helpers/levels.js';
+import { runExine } from '../helpers/run-exine.js';
+import { tempDir } from '../helpers/temp-dir.js';
+
+const tick = (ms = 40) => new Promise((r) => setTimeout(r, ms));
+
+async function screen({ columns = 80, rows = 24, bell = false, path = null as string | null, breakMinutes = null as number | null } = {}) {
+  const level = path ? { path, ...resumeLevel(path) } : newLevelFile(tempDir(), 'level.jsonl', TINY_KEYMAP);
+  const session = new CountingSession(level.writer, level.state, level.notices);
+  const ui = render(<CountScreen session={session} columns={columns} rows={rows} bell={bell} breakMinutes={breakMinutes} />);
+  await tick();
+  const type = async (keys: string) => {
+    ui.stdin.write(keys);
+    await tick();
+  };
+  const frame = () => [...ui.frames].reverse().find((f) => f !== '\x07') ?? '';
+  return { ...ui, session, path: level.path, type, frame };
+}
+
+const events = (path: string) => scanLog(readFileSync(path)).events;
+
+describe('notes', () => {
+  it('Enter opens a note on the last grain; while it is open taxon keys type text and count nothing', async () => {
+    const s = await screen();
+    await s.type('ab');
+    await s.type('\r');
+    expect(s.frame()).toMatch(/Note on #4 Betula \(Enter saves, Esc cancels, "@x,y" = stage position\): █/);
+    await s.type('abc cf. Betula nana @12.4,88.1');
+    expect(s.session.getSnapshot().state.counts).toEqual({ Alnus: 1, Betula: 1 });
+    expect(s.frame().replace(/\s+/g, ' ')).toMatch(/abc cf\. Betula nana @12\.4,88\.1█/);
+    await s.type('\r');
+    expect(s.frame()).toMatch(/note recorded on #4 Betula/);
+    expect(events(s.path).at(-1)).toMatchObject({ type: 'note', grain: 4, text: 'abc cf. Betula nana', stage: { x: 12.4, y: 88.1 } });
+    // Counting goes on after the note.
+    await s.type('a');
+    expect(s.session.getSnapshot().state.counts).toEqual({ Alnus: 2, Betula: 1 });
+    s.session.shutdown();
+  });
+
+  it('Escape cancels a note and records nothing', async () => {
+    const s = await screen();
+    await s.type('a\rnot this one');
+    await s.type('\x1b');
+    await tick(100);
+    expect(s.frame()).toMatch(/note cancelled: nothing recorded/);
+    expect(events(s.path).some((e) => e.type === 'note')).toBe(false);
+    s.session.shutdown();
+  });
+
+  it('notes show in the rare-types panel, survive resume, and export as CSV', async () => {
+    const s = await screen({ columns: 140, rows: 45 });
+    await s.type('aaaaccccb\r@3.5,70 grain folded\r');
+    expect(s.frame()).toMatch(/Rare types \(≤2\)/);
+    expect(s.frame()).toMatch(/1 Betula\s*\n.*  t1 @3\.5,70 grain folded/);
+    s.session.shutdown();
+    const again = await screen({ columns: 140, rows: 45, path: s.path });
+    expect(again.frame()).toMatch(/  t1 @3\.5,70 grain folded/);
+    again.session.shutdown();
+    const rows = parse(runExine(['export', s.path, '--format', 'notes']).stdout, { columns: true }) as Record<string, string>[];
+    expect(rows).toEqual([expect.objectContaining({ taxon: 'Betula', traverse: '1', stage_x: '3.5', stage_y: '70', text: 'grain folded', level: 'T-1' })]);
+  });
+});
+
+describe('a type that is not in the keymap', () => {
+  it('= asks for name and group, gives it the next free key, records it and counts the grain', async () => {
+    const s = await screen();
+    await s.type('=');
+    expect(s.frame()).toMatch(/New type as "name, group" \(Enter counts one grain, Esc cancels\): █/);
+    await s.type('Ilex aquifolium, shrubs\r');
+    expect(s.frame()).toMatch(/new type Ilex aquifolium \(shrubs\) on key A: one grain counted/);
+    expect(s.frame()).toMatch(/A\s+Ilex aquifolium\s+shrub\s+1/);
+    await s.type('AA');
+    expect(s.session.getSnapshot().state.counts).toEqual({ 'Ilex aquifolium': 3 });
+    s.session.shutdown();
+    const state = readLevel(s.path).state;
+    expect(state.keymap.keys.A).toEqual({ taxon: 'Ilex aquifolium', group: 'shrubs' });
+    expect(state.addedTypes).toEqual(['Ilex aquifolium']);
+    // Resume knows its key, and export its group.
+    const again = await screen({ path: s.path });
+    await again.type('A');
+    expect(again.session.getSnapshot().state.counts).toEqual({ 'Ilex aquifolium': 4 });
+    again.session.shutdown();
+    const rows = parse(runExine(['export', s.path]).stdout, { columns: true }) as Record<string, string>[];
+    expect(rows.find((r) => r.taxon === 'Ilex aquifolium')).toMatchObject({ group: 'shrubs', count: '4', in_sum: 'yes' });
+  });
+
+  it('without a group it asks again and counts nothing', async () => {
+    const s = await screen();
+    await s.type('=Ilex\r');
+    expect(s.frame().replace(/\s+/g, ' ')).toMatch(/add its group after a comma: trees, shrubs, herbs/);
+    expect(s.session.getSnapshot().state.grains).toBe(0);
+    await s.type(', h\r');
+    expect(s.session.getSnapshot().state.counts).toEqual({ Ilex: 1 });
+    s.session.shutdown();
+  });
+});
+
+describe('help', () => {
+  it('? shows the keymap and the actions; the next key closes it and counts nothing', async () => {
+    const s = await screen();
+    await s.type('?');
+    expect(s.frame()).toMatch(/Help: tiny · any key closes this and counts nothing/);
+    expect(s.frame()).toMatch(/a Alnus/);
+    expect(s.frame()).toMatch(/Enter note on the last grain/);
+    await s.type('a');
+    expect(s.session.getSnapshot().state.grains).toBe(0);
+    expect(s.frame()).not.toMatch(/Help: tiny/);
+    expect(s.frame()).toMatch(/help closed: that key counted nothing/);
+    s.session.shutdown();
+  });
+});
+
+describe('sound and breaks', () => {
+  const bells = (frames: readonly string[]) => frames.filter((f) => f === '\x07').length;
+
+  it('a bell when a new type is counted (once per burst) with the bell on, none with it off', async () => {
+    const on = await screen({ bell: true });
+    await on.type('aab');
+    expect(bells(on.frames)).toBe(1);
+    await on.type('ab');
+    expect(bells(on.frames)).toBe(1);
+    await on.type('c');
+    expect(bells(on.frames)).toBe(2);
+    on.session.shutdown();
+    const off = await screen({ bell: false });
+    await off.type('aab');
+    expect(bells(off.frames)).toBe(0);
+    off.session.shutdown();
+  });
+
+  it('the new type is marked in the recent events', async () => {
+    const s = await screen();
+    await s.type('aab');
+    expect(s.frame()).toMatch(/#3★Alnus \(t1\) new/);
+    expect(s.frame()).toMatch(/#4 Alnus \(t1\)/);
+    expect(s.frame()).toMatch(/#5★Betula \(t1\) new/);
+    s.session.shutdown();
+  });
+
+  it('after the break time the screen suggests resting the eyes, and rings once when the time comes', async () => {
+    const made = newLevelFile(tempDir(), 'l.jsonl', TINY_KEYMAP);
+    made.writer.close();
+    // A sitting whose clock started 70 minutes ago.
+    const opened = resumeLevel(made.path, { clock: () => new Date(Date.now() - 70 * 60_000) });
+    const session = new CountingSession(opened.writer, opened.state);
+    const quiet = render(<CountScreen session={session} columns={100} rows={30} bell breakMinutes={50} />);
+    await tick();
+    const text = [...quiet.frames].reverse().find((f) => f !== '\x07') ?? '';
+    expect(text).toMatch(/sitting 2 · 01:10:0\d · time to rest your eyes \(50 min\)/);
+    // Already due when the screen opened: no bell for that.
+    expect(quiet.frames.filter((f) => f === '\x07')).toHaveLength(0);
+    quiet.unmount();
+    const off = render(<CountScreen session={session} columns={100} rows={30} breakMinutes={null} />);
+    await tick();
+    expect(off.lastFrame()).not.toMatch(/rest your eyes/);
+    off.unmount();
+    session.shutdown();
+  });
+});
+
+describe('layouts', () => {
+  const demo = () => {
+    const path = join(tempDir(), 'km1-084cm.jsonl');
+    writeFileSync(path, readFileSync(new URL('../../demo-sessions/km1-084cm.jsonl', import.meta.url)));
+    return path;
+  };
+
+  it('80x24: the essentials and a compact curve, nothing wider or taller than the terminal', async () => {
+    const s = await screen({ path: demo() });
+    const lines = s.frame().split('\n');
+    expect(lines.length).toBeLessThan(24);
+    for (const line of lines) expect([...line].length).toBeLessThanOrEqual(80);
+    for (const part of [/traverse 6/, /Pollen sum 236/, /Types found: 15/, /│[⠀-⣿]/, /Last recorded/, /Stop if all/]) expect(s.frame()).toMatch(part);
+    expect(s.frame()).not.toMatch(/Rare types/);
+    s.session.shutdown();
+  });
+
+  it('140x45: every panel, the curve with its legend, rare types with their notes', async () => {
+    const s = await screen({ path: demo(), columns: 140, rows: 45 });
+    const lines = s.frame().split('\n');
+    expect(lines.length).toBeLessThan(45);
+    for (const line of lines) expect([...line].length).toBeLessThanOrEqual(140);
+    for (const part of [/Rare types \(≤2\)/, /1 Ilex aquifolium\s*\n.*  t4 @21\.7,93\.2 not in the key/, /⣀ types found · E\(Sₙ\) rarefied/, /Stop if all · sum≥300/, /Last recorded/, /Indeterminable\s+3 1% \*/]) {
+      expect(s.frame()).toMatch(part);
+    }
+    s.session.shutdown();
+  });
+
+  it('NO_COLOR still shows every panel in words', async () => {
+    const before = process.env.NO_COLOR;
+    process.env.NO_COLOR = '1';
+    try {
+      const s = await screen({ path: demo(), columns: 140, rows: 45 });
+      expect(s.frame()).not.toMatch(/\x1b\[3\dm/);
+      expect(s.frame()).toMatch(/Rare types/);
+      s.session.shutdown();
+    } finally {
+      if (before === undefined) delete process.env.NO_COLOR;
+      else process.env.NO_COLOR = before;
+    }
+  });
+});
