@@ -4,6 +4,7 @@ import type { OpenEvent, SessionEvent } from '../session/events.js';
 import { applyEvent, startFold } from '../session/fold.js';
 import { levelReport } from '../session/rules-signal.js';
 import { levelSummary } from '../export/level-summary.js';
+import { saturationCurve } from '../stats/accumulation.js';
 import { seededRandom } from '../demo/seeded-random.js';
 import { fmt, ms, ratio, summarise } from './stats.js';
 
@@ -48,6 +49,12 @@ export function benchStatsRecompute(grains = 5000, types = 150): string[] {
     state = next;
     t0 = 0n;
   }
+  const curveTimes: number[] = [];
+  for (let i = 0; i < 50; i++) {
+    const t0 = process.hrtime.bigint();
+    saturationCurve(state);
+    curveTimes.push(ms(process.hrtime.bigint() - t0));
+  }
   const summaryTimes: number[] = [];
   for (let i = 0; i < 20; i++) {
     const t0 = process.hrtime.bigint();
@@ -61,6 +68,7 @@ export function benchStatsRecompute(grains = 5000, types = 150): string[] {
     `(d) statistics after one more grain, ${grains} grains of ${types} types, every rule set (target, precision, coverage, plateau, markers, concentration error)`,
     `    count update (fold)          p50 ${fmt(p.p50)}   p99 ${fmt(p.p99)}`,
     `    + all statistics and rules   p50 ${fmt(f.p50)}   p99 ${fmt(f.p99)}   ratio p50 ${ratio(f.p50, p.p50)}   (goal: well inside a 16 ms frame)`,
+    `    the saturation curve of the screen (types found, E(S_n) at 60 points): median ${fmt(summarise(curveTimes).median)}`,
     `    the whole summary (adds Sison–Glaz, exact limits, E(S_300) with variance): median ${fmt(s.median)} (not on the live screen)`,
   ];
 }

@@ -206,7 +206,9 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
         </Text>
       </Box>
       <Text dimColor={theme.dim} wrap="truncate-end">
-        {`${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} traverse · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new type · ${keyLabel(a.help)} help · Ctrl-F finish · Ctrl-C quit`}
+        {width >= 100
+          ? `${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} traverse · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new type · ${keyLabel(a.help)} help · Ctrl-F finish · Ctrl-C quit`
+          : `${keyLabel(a.undo).replace('Backspace', 'Bksp')} undo · ${keyLabel(a.traverse)} trav · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new · ${keyLabel(a.help)} help · ^F finish · ^C quit`}
       </Text>
     </Box>
   );
