@@ -113,7 +113,7 @@ describe('the counting screen', () => {
     copyFileSync(join(import.meta.dirname, '../../demo-sessions/km1-084cm.jsonl'), path);
     const s = await screenFor(path);
     const frame = s.lastFrame() ?? '';
-    for (const part of [/Kestrel Mere KM-1 · level KM1-84 · depth 84/, /traverse 6 · sitting 2/, /Key Taxon/, /Pollen sum 236\n/, /Mark   17\*Indet   3\*/, /Stop if all · sum≥300/, /±4 ≥10% 5\.7\/4\s+\+244/, /cover \.983\/\.98\s+met/, /markers 17\/40\s+\+320/, /conc 174k\/cm³ ±25%/, /Types found: 15/, /16 since new/, /A   Ilex aquifolium    shrub      1/, /Last recorded/, /#289 sitting 2 started/, /Bksp undo · Tab trav · Enter note · = new · ? help · \^F finish · \^C quit/]) {
+    for (const part of [/Kestrel Mere KM-1 · level KM1-84 · depth 84/, /traverse 6 · sitting 2/, /Key Taxon/, /Pollen sum 236\n/, /Mark   17\*Indet   3\*/, /Stop if all · sum≥300/, /±4 ≥10% 5\.7\/4\s+\+244/, /cover \.983\/\.98\s+met/, /markers 17\/40\s+\+320/, /conc 174k\/cm³ ±25%/, /Types found: 15/, /16 since new/, /A   Ilex aquifolium    shrub      1/, /Last recorded/, /#289 sitting 2 started/, /Bksp undo · Tab trav · Enter note · = new · \? help · \^F finish · \^C quit/]) {
       expect(frame).toMatch(part);
     }
     expect(frame.split('\n').length).toBeLessThan(24);
