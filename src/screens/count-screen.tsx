@@ -16,8 +16,9 @@ import { TotalsTable, tableWidth, taxonWidthFor } from './totals-table.js';
 import { saturationCurve } from '../stats/accumulation.js';
 import { ringOnce } from './bell.js';
 import { HelpOverlay } from './help-overlay.js';
-import { rareLines, rareTypes, RareTypesPanel } from './rare-types.js';
-import { SaturationPanel, saturationHeight } from './saturation-panel.js';
+import { rareLines, rareTypes } from './rare-types.js';
+import { LinesPanel } from './lines-panel.js';
+import { saturationHeight, saturationLines } from './saturation-panel.js';
 import type { InputMode } from '../session/input-mode.js';
 
 function useNow(intervalMs: number): number {
@@ -186,14 +187,14 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
               ) : null}
               {showCurve ? (
                 <Box marginTop={gap}>
-                  <SaturationPanel curve={curve} width={colWidth} plotRows={plotRows} legend={legend} />
+                  <LinesPanel lines={saturationLines(curve, colWidth, plotRows, legend)} width={colWidth} />
                 </Box>
               ) : null}
               {wide ? null : <Box marginTop={gap}>{recent}</Box>}
             </Box>
             {wide ? (
               <Box flexDirection="column" width={colWidth} marginLeft={2}>
-                <RareTypesPanel lines={rareLines(rare, rareThreshold, colWidth, rareRoom)} width={colWidth} />
+                <LinesPanel lines={rareLines(rare, rareThreshold, colWidth, rareRoom)} width={colWidth} />
                 <Box marginTop={gap}>{recent}</Box>
               </Box>
             ) : null}

@@ -1,4 +1,3 @@
-import { Box, Text } from 'ink';
 import type { LevelState, NoteRecord } from '../session/level-state.js';
 import { fit } from '../text/cells.js';
 
@@ -29,16 +28,4 @@ export function rareLines(rare: readonly RareType[], threshold: number, width: n
     for (const n of r.notes) lines.push(fit(`  ${noteWords(n)}`, width));
   }
   return lines.length > room ? [...lines.slice(0, room - 1), fit(`… ${lines.length - room + 1} more`, width)] : lines;
-}
-
-export function RareTypesPanel({ lines, width }: { lines: readonly string[]; width: number }) {
-  return (
-    <Box flexDirection="column" width={width}>
-      {lines.map((line, i) => (
-        <Text key={i} bold={i === 0}>
-          {line}
-        </Text>
-      ))}
-    </Box>
-  );
 }

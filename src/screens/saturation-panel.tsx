@@ -1,4 +1,3 @@
-import { Box, Text } from 'ink';
 import type { SaturationCurve } from '../stats/accumulation.js';
 import { braillePlot } from '../text/braille-plot.js';
 import { fit, right } from '../text/cells.js';
@@ -21,19 +20,6 @@ export function saturationLines(curve: SaturationCurve, width: number, plotRows:
   const middle = room > since.length + 1 ? `${' '.repeat(Math.floor((room - since.length) / 2))}${since}` : '';
   const axis = `${' '.repeat(label)}0${middle}${right(String(curve.grains), plotWidth - middle.length)}`;
   return [title, ...plot, fit(axis, width), ...(legend ? [fit('⣀ types found · E(Sₙ) rarefied', width)] : [])];
-}
-
-export function SaturationPanel({ curve, width, plotRows, legend }: { curve: SaturationCurve; width: number; plotRows: number; legend: boolean }) {
-  const lines = saturationLines(curve, width, plotRows, legend);
-  return (
-    <Box flexDirection="column" width={width}>
-      {lines.map((line, i) => (
-        <Text key={i} bold={i === 0}>
-          {line}
-        </Text>
-      ))}
-    </Box>
-  );
 }
 
 export function saturationHeight(plotRows: number, legend: boolean): number {

@@ -10,20 +10,11 @@ import { readLevel, resumeLevel } from '../../src/session/session-files.js';
 import { TINY_KEYMAP, grain, newLevelFile, openPayload, timedSessionText } from '../helpers/levels.js';
 import { runExine } from '../helpers/run-exine.js';
 import { tempDir } from '../helpers/temp-dir.js';
+import { bells, countScreen, tick } from '../helpers/count-screen.js';
 
-const tick = (ms = 40) => new Promise((r) => setTimeout(r, ms));
-
-async function screen({ columns = 80, rows = 24, bell = false, path = null as string | null, breakMinutes = null as number | null } = {}) {
+function screen({ columns = 80, rows = 24, bell = false, path = null as string | null, breakMinutes = null as number | null } = {}) {
   const level = path ? { path, ...resumeLevel(path) } : newLevelFile(tempDir(), 'level.jsonl', TINY_KEYMAP);
-  const session = new CountingSession(level.writer, level.state, level.notices);
-  const ui = render(<CountScreen session={session} columns={columns} rows={rows} bell={bell} breakMinutes={breakMinutes} />);
-  await tick();
-  const type = async (keys: string) => {
-    ui.stdin.write(keys);
-    await tick();
-  };
-  const frame = () => [...ui.frames].reverse().find((f) => f !== '\x07') ?? '';
-  return { ...ui, session, path: level.path, type, frame };
+  return countScreen(level, { columns, rows, bell, breakMinutes });
 }
 
 const events = (path: string) => scanLog(readFileSync(path)).events;
@@ -120,7 +111,6 @@ describe('help', () => {
 });
 
 describe('sound and breaks', () => {
-  const bells = (frames: readonly string[]) => frames.filter((f) => f === '\x07').length;
 
   it('a bell when a new type is counted (once per burst) with the bell on, none with it off', async () => {
     const on = await screen({ bell: true });

@@ -1,31 +1,15 @@
 import { readFileSync } from 'node:fs';
-import { render } from 'ink-testing-library';
 import { describe, expect, it } from 'vitest';
 import { scanLog } from '../../src/log/scan-log.js';
 import { NO_RULES, type RuleSet } from '../../src/rules/rule-set.js';
-import { CountScreen } from '../../src/screens/count-screen.js';
-import { CountingSession } from '../../src/session/counting-session.js';
 import type { Spike } from '../../src/stats/concentration.js';
 import { TINY_KEYMAP, newLevelFile } from '../helpers/levels.js';
 import { tempDir } from '../helpers/temp-dir.js';
-
-const tick = (ms = 30) => new Promise((r) => setTimeout(r, ms));
+import { bells, countScreen, tick } from '../helpers/count-screen.js';
 
 async function screen(rules: Partial<RuleSet>, { bell = true, spike = null as Spike | null, columns = 80, rows = 24 } = {}) {
-  const level = newLevelFile(tempDir(), 'level.jsonl', TINY_KEYMAP, { ...NO_RULES, ...rules }, spike);
-  const session = new CountingSession(level.writer, level.state, level.notices);
-  const ui = render(<CountScreen session={session} columns={columns} rows={rows} bell={bell} />);
-  await tick();
-  const type = async (keys: string) => {
-    ui.stdin.write(keys);
-    await tick();
-  };
-  // The bell is written beside Ink's output, so the screen is the last frame that is not a bell.
-  const frame = () => [...ui.frames].reverse().find((f) => f !== '\x07') ?? '';
-  return { ...ui, session, path: level.path, type, frame };
+  return countScreen(newLevelFile(tempDir(), 'level.jsonl', TINY_KEYMAP, { ...NO_RULES, ...rules }, spike), { bell, columns, rows });
 }
-
-const bells = (frames: readonly string[]) => frames.filter((f) => f === '\x07').length;
 
 describe('stop rules on the counting screen', () => {
   it('with a target of 20 the banner appears at the 20th grain of the sum and not before; rules-met is in the file', async () => {
