@@ -161,7 +161,18 @@ Examples
   exine prefs set break off`,
   keys: `Usage
   exine keys PATH|NAME
+  exine keys PATH --add-types SESSION
 
 Checks a keymap file and draws its layout. NAME is a bundled keymap
-(temperate-lowland, keypad).`,
+(temperate-lowland, keypad).
+
+With --add-types, the types added while counting SESSION (the = key) are
+written into your keymap file on the keys they had, so the next level starts
+with them. The file keeps its layout; a bundled keymap is never changed (copy
+it first).
+
+Examples
+  exine keys keypad
+  cp keymaps/temperate-lowland.json km1-keys.json
+  exine keys km1-keys.json --add-types km1-084cm.jsonl`,
 };

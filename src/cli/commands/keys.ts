@@ -1,12 +1,51 @@
-import { UsageError } from '../../errors.js';
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { ExineError, UsageError } from '../../errors.js';
+import { writeFileAtomic } from '../../io/write-atomic.js';
+import { addTypesToKeymap, type AddedType } from '../../keymap/add-types.js';
 import { drawLayout } from '../../keymap/draw-layout.js';
-import { loadKeymap } from '../../keymap/load-keymap.js';
+import { isBundledKeymap, loadKeymap, resolveKeymapPath } from '../../keymap/load-keymap.js';
+import { readLevel } from '../../session/session-files.js';
+import { plural } from '../../text/cells.js';
 import { parseFlags } from '../parse-flags.js';
 
+/** The types a session added while counting, with the keys they got there. */
+function addedTypesOf(sessionPath: string): AddedType[] {
+  const { state } = readLevel(resolve(sessionPath));
+  return state.addedTypes.map((taxon) => {
+    const [key, binding] = Object.entries(state.keymap.keys).find(([, b]) => b.taxon === taxon) as [string, { group: AddedType['group'] }];
+    return { key, taxon, group: binding.group };
+  });
+}
+
 export function keysCommand(args: string[]): number {
-  const { positionals } = parseFlags('keys', args, {});
+  const { values, positionals } = parseFlags('keys', args, { 'add-types': { type: 'string' } });
   if (positionals.length !== 1) throw new UsageError('exine keys: give one keymap PATH or bundled NAME (see exine keys --help)');
-  const { keymap } = loadKeymap(positionals[0] as string);
-  process.stdout.write(`${drawLayout(keymap)}\n`);
+  const name = positionals[0] as string;
+  const from = values['add-types'];
+  if (from === undefined) {
+    const { keymap } = loadKeymap(name);
+    process.stdout.write(`${drawLayout(keymap)}\n`);
+    return 0;
+  }
+  const path = resolveKeymapPath(name);
+  if (isBundledKeymap(path)) {
+    throw new UsageError(`exine keys: ${name} is a bundled keymap and is never changed; copy it (cp ${path} my-keymap.json) and add the types to the copy`);
+  }
+  loadKeymap(name);
+  const types = addedTypesOf(from);
+  if (types.length === 0) {
+    process.stdout.write(`${from} added no types while counting; ${name} is unchanged\n`);
+    return 0;
+  }
+  const result = addTypesToKeymap(readFileSync(path, 'utf8'), name, types);
+  if (!result.ok) throw new ExineError(result.message);
+  if (result.added.length) writeFileAtomic(path, result.text, true);
+  const lines = [
+    ...result.added.map((t) => `added ${t.taxon} (${t.group}) on key ${t.key}`),
+    ...result.skipped.map((t) => `${t} is in ${name} already`),
+    `${name}: ${plural(result.added.length, 'type')} added`,
+  ];
+  process.stdout.write(`${lines.join('\n')}\n`);
   return 0;
 }
