@@ -56,14 +56,19 @@ export function keyLabel(key: KeyName | null): string {
 }
 
 const sumTaxa = new WeakMap<Keymap, ReadonlySet<string>>();
+// A replay asks for one keymap 100,000 times in a row: remember the last one.
+let lastKeymap: Keymap | null = null;
+let lastSet: ReadonlySet<string> = new Set();
 
 /** Whether a taxon's grains count in the pollen sum; a taxon the keymap does not list is "other". */
 export function inPollenSum(keymap: Keymap, taxon: string): boolean {
-  let set = sumTaxa.get(keymap);
+  let set = keymap === lastKeymap ? lastSet : sumTaxa.get(keymap);
   if (!set) {
     set = new Set(Object.values(keymap.keys).filter((b) => keymap.sum.includes(b.group)).map((b) => b.taxon));
     sumTaxa.set(keymap, set);
   }
+  lastKeymap = keymap;
+  lastSet = set;
   if (set.has(taxon)) return true;
   return keymap.sum.includes('other') && !Object.values(keymap.keys).some((b) => b.taxon === taxon);
 }

@@ -1,4 +1,4 @@
-import betaQuantile from '@stdlib/stats-base-dists-beta-quantile';
+import { betaQuantile } from './special-functions.js';
 import type { Interval } from './wilson.js';
 
 /**

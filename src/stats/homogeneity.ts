@@ -1,4 +1,4 @@
-import chisquareCdf from '@stdlib/stats-base-dists-chisquare-cdf';
+import { chisquareCdf } from './special-functions.js';
 
 export interface ChiSquareResult {
   readonly statistic: number;

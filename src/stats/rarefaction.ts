@@ -1,4 +1,4 @@
-import gammaln from '@stdlib/math-base-special-gammaln';
+import { gammaln } from './special-functions.js';
 
 export interface Rarefied {
   readonly n: number;

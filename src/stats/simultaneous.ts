@@ -1,6 +1,4 @@
-import gammaln from '@stdlib/math-base-special-gammaln';
-import poissonCdf from '@stdlib/stats-base-dists-poisson-cdf';
-import chisquareQuantile from '@stdlib/stats-base-dists-chisquare-quantile';
+import { chisquareQuantile, gammaln, poissonCdf } from './special-functions.js';
 import type { Interval } from './wilson.js';
 
 const clamp = (v: number) => Math.min(1, Math.max(0, v));

@@ -5,12 +5,13 @@ import { writeFileAtomic } from '../../io/write-atomic.js';
 import { addTypesToKeymap, type AddedType } from '../../keymap/add-types.js';
 import { drawLayout } from '../../keymap/draw-layout.js';
 import { isBundledKeymap, loadKeymap, resolveKeymapPath } from '../../keymap/load-keymap.js';
-import { readLevel } from '../../session/session-files.js';
 import { plural } from '../../text/cells.js';
 import { parseFlags } from '../parse-flags.js';
 
 /** The types a session added while counting, with the keys they got there. */
-function addedTypesOf(sessionPath: string): AddedType[] {
+async function addedTypesOf(sessionPath: string): Promise<AddedType[]> {
+  // Loaded only here: drawing a keymap needs none of the session code.
+  const { readLevel } = await import('../../session/session-files.js');
   const { state } = readLevel(resolve(sessionPath));
   return state.addedTypes.map((taxon) => {
     const [key, binding] = Object.entries(state.keymap.keys).find(([, b]) => b.taxon === taxon) as [string, { group: AddedType['group'] }];
@@ -18,7 +19,7 @@ function addedTypesOf(sessionPath: string): AddedType[] {
   });
 }
 
-export function keysCommand(args: string[]): number {
+export async function keysCommand(args: string[]): Promise<number> {
   const { values, positionals } = parseFlags('keys', args, { 'add-types': { type: 'string' } });
   if (positionals.length !== 1) throw new UsageError('exine keys: give one keymap PATH or bundled NAME (see exine keys --help)');
   const name = positionals[0] as string;
@@ -33,7 +34,7 @@ export function keysCommand(args: string[]): number {
     throw new UsageError(`exine keys: ${name} is a bundled keymap and is never changed; copy it (cp ${path} my-keymap.json) and add the types to the copy`);
   }
   loadKeymap(name);
-  const types = addedTypesOf(from);
+  const types = await addedTypesOf(from);
   if (types.length === 0) {
     process.stdout.write(`${from} added no types while counting; ${name} is unchanged\n`);
     return 0;
