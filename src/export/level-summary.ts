@@ -90,6 +90,8 @@ export function levelSummary(state: LevelState, rarefyAt: readonly number[] = []
     rules: rules.rules,
     met: rules.met,
     grainsNeeded: rules.grainsNeeded,
+    notes: state.notes,
+    addedTypes: state.addedTypes,
     // When the count could first have stopped, and the latest time the set became met.
     firstMet: state.firstRulesMet,
     lastMet: state.lastRulesMet,

@@ -22,3 +22,8 @@ export function isGroup(value: string): value is Group {
 export function groupRank(group: Group): number {
   return GROUPS.indexOf(group);
 }
+
+/** Groups whose first grain is a discovery worth a bell: pollen and spores, not markers, indeterminables or charcoal. */
+export function isTypeGroup(group: Group): boolean {
+  return group !== 'markers' && group !== 'indeterminable' && group !== 'other';
+}

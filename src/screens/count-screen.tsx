@@ -20,6 +20,7 @@ import { rareLines, rareTypes } from './rare-types.js';
 import { LinesPanel } from './lines-panel.js';
 import { saturationHeight, saturationLines } from './saturation-panel.js';
 import type { InputMode } from '../session/input-mode.js';
+import { isTypeGroup } from '../keymap/groups.js';
 
 function useNow(intervalMs: number): number {
   const [now, setNow] = useState(() => Date.now());
@@ -87,6 +88,12 @@ function useBreakReminder(elapsedMs: number, minutes: number | null, enabled: bo
   return due > 0;
 }
 
+/** The pollen and spore types counted so far (markers, indeterminables and charcoal are not discoveries). */
+function typesFound(state: LevelState): ReadonlySet<string> {
+  const groupOf = new Map(Object.values(state.keymap.keys).map((b) => [b.taxon, b.group]));
+  return new Set(Object.keys(state.firstSeen).filter((t) => isTypeGroup(groupOf.get(t) ?? 'other')));
+}
+
 function promptOf(mode: InputMode | null): string | null {
   if (mode?.kind === 'note') {
     const on = mode.grain === null ? 'the level' : `#${mode.grain} ${mode.taxon ?? ''}`.trim();
@@ -109,7 +116,8 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   const now = useNow(1000);
   const sittingMs = now - Date.parse(state.sittingStartedAt);
   useStopBell(state.lastRulesMet?.seq ?? null, bell);
-  useNewTypeBell(Object.keys(state.firstSeen).length, bell);
+  const newTypes = useMemo(() => typesFound(state), [state]);
+  useNewTypeBell(newTypes.size, bell);
   const breakDue = useBreakReminder(sittingMs, breakMinutes, bell);
 
   // Every key of a burst is applied in order against the session, never against a rendered value.
@@ -155,7 +163,7 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   const where = [h.site, h.core].filter(Boolean).join(' ');
   const depth = h.depth === null ? '' : ` · depth ${h.depth}`;
   const a = state.keymap.actions;
-  const recent = <RecentEvents events={state.recent} room={recentRoom} width={colWidth} firstSeen={state.firstSeen} />;
+  const recent = <RecentEvents events={state.recent} room={recentRoom} width={colWidth} firstSeen={state.firstSeen} isType={(t) => newTypes.has(t)} />;
 
   return (
     <Box flexDirection="column" width={width} height={height}>

@@ -50,6 +50,7 @@ describe('the read-only commands on the demo core', () => {
     expect(run.stdout).toMatch(/stop rules: ±4 points for taxa ≥ 10% and coverage 0\.98 and 40 markers, with a pollen sum of at least 300 — not met/);
     expect(run.stdout).toMatch(/coverage\s+0\.9831 of 0\.9800\s+met/);
     expect(run.stdout).toMatch(/concentration 173529 grains\/cm³ \(±25\.3%, 95% 106090–302942\) from 17 markers/);
+    expect(run.stdout).toMatch(/\n4 notes \(exine export --format notes lists them\) · added while counting: Ilex aquifolium\n/);
     expect(run.stdout).toMatch(/Corylus\s+shrubs\s+65\s+27\.5\s+22\.2–33\.6\s+21\.9–33\.7/);
   });
 

@@ -120,6 +120,11 @@ describe('sound and breaks', () => {
     expect(bells(on.frames)).toBe(1);
     await on.type('c');
     expect(bells(on.frames)).toBe(2);
+    // The first marker grain is no new type.
+    await on.type('l');
+    expect(bells(on.frames)).toBe(2);
+    await on.type('s');
+    expect(bells(on.frames)).toBe(3);
     on.session.shutdown();
     const off = await screen({ bell: false });
     await off.type('aab');

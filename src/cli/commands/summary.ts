@@ -56,6 +56,11 @@ function textReport(s: LevelSummary): string[] {
         : `concentration ${Math.round(c.value)} ${unit} (±${(100 * (c.relativeError ?? 0)).toFixed(1)}%, 95% ${Math.round(c.low ?? 0)}–${Math.round(c.high ?? 0)}) from ${s.markers} markers${c.influx === null ? '' : ` · influx ${Math.round(c.influx)} grains/cm²/yr`}`,
     );
   }
+  if (s.notes.length || s.addedTypes.length) {
+    lines.push(
+      `${plural(s.notes.length, 'note')}${s.notes.length ? ' (exine export --format notes lists them)' : ''}${s.addedTypes.length ? ` · added while counting: ${s.addedTypes.join(', ')}` : ''}`,
+    );
+  }
   lines.push(
     '',
     `${fit('taxon', 22)} ${fit('group', 14)} ${right('count', 6)} ${right('%', 6)}  ${fit('95% Wilson', 12)} ${fit('exact', 12)} simultaneous`,
