@@ -209,6 +209,9 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
         previousGrain = null;
         break;
       }
+      case 'taxon':
+        into(current, e);
+        break;
       case 'note':
         into(current, e);
         notes.set(current, (notes.get(current) ?? 0) + 1);

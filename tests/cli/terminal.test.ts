@@ -64,6 +64,28 @@ describe('exine count in a terminal', () => {
     expect(tail).toEqual(['sitting', 'rules', 'rules-unmet', 'close']);
   });
 
+  it('a note and a new type typed in a real terminal, each in one burst, then resumed', async () => {
+    const dir = tempDir();
+    const t = startInPty(['count', 'l.jsonl', '--quiet'], dir);
+    await t.ready(/Pollen sum 0/);
+    t.type('qq\r@4.5,77 cf. Quercus robur\r');
+    await t.waitFor(/note recorded on #4 Quercus/);
+    t.type('=Ilex aquifolium, sh\rAb');
+    await t.waitFor(/Pollen sum 5/);
+    t.type('\x03');
+    expect(await t.exited()).toBe(0);
+    const events = scanLog(readFileSync(join(dir, 'l.jsonl'))).events;
+    expect(events.find((e) => e.type === 'note')).toMatchObject({ grain: 4, text: 'cf. Quercus robur', stage: { x: 4.5, y: 77 } });
+    expect(events.find((e) => e.type === 'taxon')).toMatchObject({ taxon: 'Ilex aquifolium', group: 'shrubs', key: 'A' });
+    const again = startInPty(['count', 'l.jsonl', '--quiet'], dir);
+    await again.ready(/Pollen sum 5/);
+    again.type('A');
+    await again.waitFor(/Pollen sum 6/);
+    again.type('\x03');
+    expect(await again.exited()).toBe(0);
+    expect(readLevel(join(dir, 'l.jsonl')).state.counts).toEqual({ Quercus: 2, 'Ilex aquifolium': 3, Betula: 1 });
+  });
+
   it('a second exine on the same file is refused while the first counts', async () => {
     const dir = tempDir();
     const first = startInPty(['count', 'l.jsonl'], dir);
