@@ -20,7 +20,9 @@ export function readForAudit(path: string, options: AuditOptions) {
   const events = scan.events as readonly SessionEvent[];
   const state = foldEvents(events[0] as OpenEvent, scan.keymap, events);
   const verdict = verdictOf(basename(path), scan);
-  return { scan, events, state, verdict, audit: auditLevel(events, state, options) };
+  // Only the last line incomplete: most often a line another exine is writing at this moment.
+  const writing = scan.tail !== null && scan.corruption === null;
+  return { scan, events, state, verdict, writing, audit: auditLevel(events, state, options) };
 }
 
 

@@ -16,6 +16,8 @@ export interface AuditRead {
   readonly state: LevelState;
   readonly audit: LevelAudit;
   readonly verdict: Verdict;
+  /** True when only the last line is incomplete: it is being written, or a crash cut it (exine count repairs it). */
+  readonly writing?: boolean;
 }
 
 /** Where the audit screen reads from and writes corrections to; the CLI reads the file, tests may do the same. */
@@ -153,8 +155,8 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
   return (
     <Box flexDirection="column" width={width} height={height}>
       <Text bold color={theme.accent} wrap="truncate-end">{`Audit · ${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · slide ${h.slide ?? '–'}`}</Text>
-      <Text wrap="truncate-end" color={read.verdict.intact ? undefined : theme.error}>
-        {`${read.verdict.intact ? 'file intact' : 'FILE DAMAGED'} · ${plural(audit.grains, 'grain')} · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · ${formatDuration(audit.countingMs)} counting · ${perMin(audit.perMinute)}/min`}
+      <Text wrap="truncate-end" color={read.verdict.intact || read.writing ? undefined : theme.error}>
+        {`${read.verdict.intact ? 'file intact' : read.writing ? 'last line incomplete (being written?)' : 'FILE DAMAGED'} · ${plural(audit.grains, 'grain')} · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · ${formatDuration(audit.countingMs)} counting · ${perMin(audit.perMinute)}/min`}
       </Text>
       <Text wrap="truncate-end">{evenLine}</Text>
       <Text wrap="truncate-end" color={audit.flags.length ? theme.warning : undefined}>

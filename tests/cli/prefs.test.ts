@@ -50,6 +50,18 @@ describe('exine prefs', () => {
     expect(readFileSync(join(e.EXINE_CONFIG_DIR, 'config.json'), 'utf8')).toBe('{"rare": "many"}');
   });
 
+  it('a keymap preference is checked when set and kept as an absolute path', () => {
+    const e = env();
+    const dir = tempDir();
+    writeFileSync(join(dir, 'mine.json'), '{"name":"Mine","keys":{"q":{"taxon":"Quercus","group":"trees"}}}');
+    const run = runExine(['prefs', 'set', 'keymap', 'mine.json'], dir, e);
+    expect(run.stdout).toBe(`keymap = ${join(dir, 'mine.json')}\n`);
+    const missing = runExine(['prefs', 'set', 'keymap', 'nope.json'], dir, e);
+    expect(missing.code).toBe(1);
+    expect(oneLine(missing)).toMatch(/keymap nope\.json: no such file/);
+    expect(runExine(['prefs', 'set', 'keymap', 'keypad'], dir, e).stdout).toBe('keymap = keypad\n');
+  });
+
   it('flags override preferences, preferences override the defaults', () => {
     const prefs = { ...DEFAULT_PREFS, bell: false, rare: 4, break: 30 };
     expect(screenOptions(DEFAULT_PREFS, {})).toEqual({ bell: true, rareThreshold: 2, breakMinutes: 50 });

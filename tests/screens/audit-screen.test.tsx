@@ -131,6 +131,14 @@ describe('the audit screen', () => {
     big.unmount();
   });
 
+  it('a last line still being written is said so, not called damage', async () => {
+    const path = level();
+    (await import('node:fs')).appendFileSync(path, '{"seq":11,"at":"2026-');
+    const a = await auditOf(path);
+    expect(a.lastFrame()).toMatch(/last line incomplete \(being written\?\) · 6 grains/);
+    a.unmount();
+  });
+
   it('q quits', async () => {
     const a = await auditOf(level());
     await a.type('q');

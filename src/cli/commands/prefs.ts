@@ -1,6 +1,7 @@
 import { UsageError } from '../../errors.js';
 import { formatPref, parsePref, PREF_HELP, PREF_NAMES, type PrefName } from '../../prefs/pref-values.js';
 import { clearPreference, readPreferences, writePreference } from '../../prefs/preferences.js';
+import { isBundledKeymap, loadKeymap, resolveKeymapPath } from '../../keymap/load-keymap.js';
 import { fit } from '../../text/cells.js';
 import { parseFlags } from '../parse-flags.js';
 
@@ -27,8 +28,15 @@ export function prefsCommand(args: string[]): number {
     if (rest.length === 0) throw new UsageError(`exine prefs: give a value for ${pref} (${PREF_HELP[pref]})`);
     const parsed = parsePref(pref, rest.join(' '));
     if (!parsed.ok) throw new UsageError(`exine prefs: ${parsed.message}`);
-    writePreference(pref, parsed.value);
-    process.stdout.write(`${pref} = ${formatPref(pref, parsed.value)}\n`);
+    let value = parsed.value;
+    if (pref === 'keymap') {
+      // Checked now, and kept as an absolute path: a count started from another folder finds the same file.
+      const path = resolveKeymapPath(value as string);
+      loadKeymap(value as string);
+      value = isBundledKeymap(path) ? (value as string) : path;
+    }
+    writePreference(pref, value);
+    process.stdout.write(`${pref} = ${formatPref(pref, value)}\n`);
     return 0;
   }
   if (verb === 'unset') {
