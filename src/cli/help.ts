@@ -8,7 +8,7 @@ Commands
   demo           count a copy of the demo level in a temporary folder
   audit FILE     review a level traverse by traverse; correct it (--plain: a report)
   summary FILE   statistics and stop-rule state of a level
-  export FILE…   levels as CSV (long or wide)
+  export FILE…   levels as CSV (long, wide, or their notes)
   verify FILE    check a session file's integrity chain
   keys PATH      check a keymap and show its layout
   prefs          show or set preferences (bell, rare, break, keymap, analyst)
