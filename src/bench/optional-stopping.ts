@@ -5,6 +5,7 @@ import { syntheticKeymap } from './synthetic-keymap.js';
 import type { OpenEvent, SessionEvent } from '../session/events.js';
 import { startFold } from '../session/fold.js';
 import { levelStats } from '../stats/level-stats.js';
+import { sisonGlazIntervals } from '../stats/simultaneous.js';
 import { wilsonInterval } from '../stats/wilson.js';
 import { pickWeighted, seededRandom } from '../demo/seeded-random.js';
 import { quantile } from './stats.js';
@@ -25,6 +26,8 @@ interface Outcome {
   readonly grains: number;
   /** For each major taxon: did the reported 95% Wilson interval contain the true share? */
   readonly covered: readonly boolean[];
+  /** Did the Sison–Glaz simultaneous limits contain all nine true shares at once? */
+  readonly jointSimultaneous: boolean;
 }
 
 /** One simulated count: grains drawn one by one, the real rules judged after each, until the set is met. */
@@ -44,10 +47,22 @@ function countOnce(rules: RuleSet, keymap: Keymap, random: () => number): Outcom
     // A fixed target needs no judging before it is reached; every other rule is judged at every grain.
     if (targetOnly ? n >= (rules.targetSum as number) : evaluateRules(rules, levelStats(folding.state()), null).met) break;
   }
-  return { grains: n, covered: MAJOR.map((share, i) => {
-    const ci = wilsonInterval(counts[i] as number, n);
-    return ci.low <= share && share <= ci.high;
-  }) };
+  // Simultaneous limits over the types seen, as summary reports them.
+  const seen = counts.map((c, i) => [c, i] as const).filter(([c]) => c > 0);
+  const limits = sisonGlazIntervals(seen.map(([c]) => c));
+  const byType = new Map(seen.map(([, i], k) => [i, limits[k]]));
+  const jointSimultaneous = MAJOR.every((share, i) => {
+    const ci = byType.get(i);
+    return ci !== undefined && ci.low <= share && share <= ci.high;
+  });
+  return {
+    grains: n,
+    covered: MAJOR.map((share, i) => {
+      const ci = wilsonInterval(counts[i] as number, n);
+      return ci.low <= share && share <= ci.high;
+    }),
+    jointSimultaneous,
+  };
 }
 
 /**
@@ -59,7 +74,7 @@ export function benchOptionalStopping(runs = 2000): string[] {
   const keymap = syntheticKeymap(SHARES.length);
   const lines = [
     `(e) optional stopping: ${runs} simulated counts per rule from a known assemblage (shares ${MAJOR.join(', ')} and 20 types of 0.001), cap ${CAP} grains`,
-    `    ${'rule'.padEnd(30)} ${'mean'.padStart(6)} ${'p90'.padStart(6)}  95% intervals containing the true share: mean of 9 taxa · worst taxon · all 9 at once`,
+    `    ${'rule'.padEnd(30)} ${'mean'.padStart(6)} ${'p90'.padStart(6)}  95% Wilson intervals containing the true share: mean of 9 taxa · worst taxon · all 9 at once; Sison–Glaz limits holding all 9 at once`,
   ];
   RULE_SETS.forEach(({ name, rules }, r) => {
     const random = seededRandom(4242 + r);
@@ -68,11 +83,12 @@ export function benchOptionalStopping(runs = 2000): string[] {
     const mean = grains.reduce((a, b) => a + b, 0) / runs;
     const perTaxon = MAJOR.map((_, i) => outcomes.filter((o) => o.covered[i]).length / runs);
     const all = outcomes.filter((o) => o.covered.every(Boolean)).length / runs;
+    const joint = outcomes.filter((o) => o.jointSimultaneous).length / runs;
     const capped = outcomes.filter((o) => o.grains >= CAP).length;
     const worst = Math.min(...perTaxon);
     const worstTaxon = perTaxon.indexOf(worst);
     lines.push(
-      `    ${name.padEnd(30)} ${mean.toFixed(0).padStart(6)} ${String(quantile(grains, 0.9)).padStart(6)}  ${(100 * perTaxon.reduce((a, b) => a + b, 0) / perTaxon.length).toFixed(1)}% · ${(100 * worst).toFixed(1)}% (share ${MAJOR[worstTaxon]}) · ${(100 * all).toFixed(1)}%${capped ? ` · ${capped} hit the cap` : ''}`,
+      `    ${name.padEnd(30)} ${mean.toFixed(0).padStart(6)} ${String(quantile(grains, 0.9)).padStart(6)}  ${(100 * perTaxon.reduce((a, b) => a + b, 0) / perTaxon.length).toFixed(1)}% · ${(100 * worst).toFixed(1)}% (share ${MAJOR[worstTaxon]}) · ${(100 * all).toFixed(1)}%; ${(100 * joint).toFixed(1)}%${capped ? ` · ${capped} hit the cap` : ''}`,
     );
   });
   return lines;
