@@ -49,7 +49,15 @@ describe('exine audit --plain', () => {
     expect(out).toMatch(/Traverse 3 has more Betula than the rest \(30 counted/);
     expect(out).toMatch(/\[double-press\] #\d+ and #\d+: key "c" \(Corylus\) twice within 60 ms/);
     expect(out).toMatch(/\[interruption\] 9 min without a grain inside traverse 3/);
+    expect(out).toMatch(/Notes: none/);
     expect(out).toMatch(/Corrections: none/);
+  });
+
+  it('lists the notes with their grains and stage positions, and the types added', () => {
+    const out = runExine(['audit', 'demo-sessions/km1-084cm.jsonl', '--plain'], join(import.meta.dirname, '../..')).stdout;
+    expect(out).toMatch(/Notes \(4\)\n/);
+    expect(out).toMatch(/  #\d+ #\d+ Ilex aquifolium, traverse 4, stage 21\.7, 93\.2: not in the keymap/);
+    expect(out).toMatch(/Types added while counting: Ilex aquifolium \(key A\)/);
   });
 
   it('shows a correction made on the audit screen', () => {
