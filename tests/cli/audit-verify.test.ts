@@ -56,7 +56,7 @@ describe('exine audit --plain', () => {
   it('lists the notes with their grains and stage positions, and the types added', () => {
     const out = runExine(['audit', 'demo-sessions/km1-084cm.jsonl', '--plain'], join(import.meta.dirname, '../..')).stdout;
     expect(out).toMatch(/Notes \(4\)\n/);
-    expect(out).toMatch(/  #\d+ #\d+ Ilex aquifolium, traverse 4, stage 21\.7, 93\.2: not in the keymap/);
+    expect(out).toMatch(/  #\d+ on grain #\d+ Ilex aquifolium, traverse 4, stage 21\.7, 93\.2: not in the keymap/);
     expect(out).toMatch(/Types added while counting: Ilex aquifolium \(key A\)/);
   });
 
