@@ -12,13 +12,14 @@ import { RulesPanel, rulesPanelHeight, stopBanner } from './rules-panel.js';
 import { RecentEvents } from './recent-events.js';
 import { SumPanel, sumPanelHeight } from './sum-panel.js';
 import { themeFor } from './theme.js';
-import { TotalsTable, tableWidth, taxonWidthFor } from './totals-table.js';
+import { TotalsTable } from './totals-table.js';
+import { countLayout } from './count-layout.js';
 import { saturationCurve } from '../stats/accumulation.js';
 import { ringOnce } from './bell.js';
 import { HelpOverlay } from './help-overlay.js';
 import { rareLines, rareTypes } from './rare-types.js';
 import { LinesPanel } from './lines-panel.js';
-import { saturationHeight, saturationLines } from './saturation-panel.js';
+import { saturationLines } from './saturation-panel.js';
 import type { InputMode } from '../session/input-mode.js';
 import { isTypeGroup } from '../keymap/groups.js';
 
@@ -139,26 +140,17 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   // The status takes the lines it needs (up to 3; word wrap wastes some of each line).
   const statusLines = Math.min(3, Math.max(1, Math.ceil([...status].length / Math.max(20, width - 12))));
   const met = report.rules.met;
-  // Two header lines, the stop banner when met, the status, one key line.
-  const mainHeight = height - 3 - statusLines - (met ? 1 : 0);
-  const taxonWidth = taxonWidthFor(width);
-  const sideWidth = Math.max(20, width - tableWidth(taxonWidth) - 2);
-  // A wide side splits in two columns: sum, rules and the curve; rare types and recent events.
-  const wide = sideWidth >= 56;
-  const colWidth = wide ? Math.floor((sideWidth - 3) / 2) : sideWidth;
-  const compactSum = !wide && mainHeight < 26;
-  const sumHeight = sumPanelHeight(table, state.rules.targetSum, compactSum);
+  const { mainHeight, taxonWidth, sideWidth, wide, colWidth, compactSum, gap, plotRows, legend, rareRoom, recentRoom } = countLayout({
+    width,
+    height,
+    statusLines,
+    banner: met,
+    sumHeight: (compact) => sumPanelHeight(table, state.rules.targetSum, compact),
+    rulesHeight: rulesPanelHeight(report.rules, report.stats.concentration),
+    rareLines: (w) => rareLines(rare, rareThreshold, w, Number.POSITIVE_INFINITY).length,
+  });
   const rulesHeight = rulesPanelHeight(report.rules, report.stats.concentration);
-  const gap = mainHeight >= 24 ? 1 : 0;
-  const colALeft = mainHeight - sumHeight - (rulesHeight ? rulesHeight + gap : 0);
-  // The curve gets what is left in its column; in one narrow column recent events keep at least four lines.
-  const plotRows = Math.max(0, Math.min(wide ? 12 : 8, colALeft - gap - (wide ? 3 : 7)));
-  const legend = wide || plotRows >= 5;
   const showCurve = plotRows >= 2;
-  const curveHeight = showCurve ? saturationHeight(plotRows, legend) + gap : 0;
-  const rareAll = wide ? rareLines(rare, rareThreshold, colWidth, Number.POSITIVE_INFINITY) : [];
-  const rareRoom = wide ? Math.max(3, Math.min(rareAll.length, Math.floor(mainHeight / 2))) : 0;
-  const recentRoom = Math.max(1, (wide ? mainHeight - rareRoom - gap : colALeft - curveHeight - gap) - 1);
   const h = state.header;
   const where = [h.site, h.core].filter(Boolean).join(' ');
   const depth = h.depth === null ? '' : ` · depth ${h.depth}`;
