@@ -125,4 +125,11 @@ describe('exine summary --json on data laid out as the published examples', () =
     expect(s.spike).toBeNull();
     expect(runExine(['verify', 'level.jsonl'], dir).code).toBe(0);
   });
+
+  it('a note that looks like a spreadsheet formula is exported as text, not run', () => {
+    const dir = levelFile(sessionText([openPayload(keymapOf(2)), ...grainsFor([3]), { type: 'note', text: '=HYPERLINK("http://x","y")', grain: 2, stage: null }]));
+    const rows = parse(runExine(['export', 'level.jsonl', '--format', 'notes'], dir).stdout, { columns: true }) as Record<string, string>[];
+    expect(rows[0]!.text).toBe(`'=HYPERLINK("http://x","y")`);
+    expect(rows[0]).toMatchObject({ taxon: 'T01', grain_seq: '2', stage_x: '' });
+  });
 });
