@@ -1,7 +1,8 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { splitKeys } from '../../src/input/key-press.js';
-import type { OpenEvent } from '../../src/session/events.js';
-import { foldEvents } from '../../src/session/fold.js';
+import type { OpenEvent, SessionEvent } from '../../src/session/events.js';
+import { applyEvents, foldEvents } from '../../src/session/fold.js';
 import { FINISH_PROMPT, planBurst } from '../../src/session/plan-burst.js';
 import { TINY_KEYMAP, openPayload } from '../helpers/levels.js';
 
@@ -90,3 +91,41 @@ describe('planning a burst of keys', () => {
   });
 });
 
+
+describe('bursts split anywhere', () => {
+  /** Plan and fold each burst in turn, as the session does, carrying the mode between bursts. */
+  function run(bursts: readonly string[]) {
+    let state = start;
+    let mode: ReturnType<typeof planBurst>['mode'] = null;
+    const payloads: unknown[] = [];
+    for (const text of bursts) {
+      const p = planBurst(state, mode, splitKeys(text, {}));
+      const events = p.payloads.map((e, i) => ({ ...e, seq: state.lastSeq + 1 + i, at: state.lastAt }) as SessionEvent);
+      state = applyEvents(state, events);
+      payloads.push(...p.payloads);
+      mode = p.mode;
+      if (p.quit) break;
+    }
+    return { payloads, counts: state.counts, notes: state.notes.map((n) => [n.grain, n.text, n.stage]), mode };
+  }
+
+  it('property: the same keys give the same events however the terminal chunks them (fast-check)', () => {
+    const key = fc.constantFrom('a', 'b', 's', 'l', '\r', '=', '\x1b', '\x7f', '\t', 'x', ',', ' ', 'h', '@', '1', '?', 'A');
+    fc.assert(
+      fc.property(fc.array(key, { maxLength: 60 }), fc.array(fc.integer({ min: 0, max: 60 }), { maxLength: 8 }), (keys, cuts) => {
+        const text = keys.join('');
+        const points = [...new Set(cuts.map((c) => Math.min(c, text.length)))].sort((x, y) => x - y);
+        const bursts: string[] = [];
+        let from = 0;
+        for (const p of points) {
+          bursts.push(text.slice(from, p));
+          from = p;
+        }
+        bursts.push(text.slice(from));
+        // A terminal never delivers an empty chunk (an empty input is a special key of its own).
+        expect(run(bursts.filter(Boolean))).toEqual(run([text]));
+      }),
+      { numRuns: 500 },
+    );
+  });
+});
