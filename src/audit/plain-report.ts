@@ -3,7 +3,7 @@ import { formatDuration } from '../session/describe-event.js';
 import type { LevelState } from '../session/level-state.js';
 import { fit, plural, right } from '../text/cells.js';
 import { describeCell, POOLED } from './evenness.js';
-import type { LevelAudit } from './level-audit.js';
+import { timelineBar, type LevelAudit } from './level-audit.js';
 
 const day = (iso: string | null) => (iso ? iso.replace('T', ' ').slice(0, 16) : '–');
 const perMin = (v: number | null) => (v === null ? '–' : v.toFixed(1));
@@ -38,10 +38,10 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
     `${plural(audit.grains, 'grain')} counted · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · counting time ${formatDuration(audit.countingMs)} · ${perMin(audit.perMinute)} grains/min`,
     '',
     'Sittings',
-    ...audit.sittings.map(
-      (s) =>
-        `  ${right(String(s.sitting), 2)}  ${day(s.start)} – ${day(s.end).slice(11)}  counting ${formatDuration(s.countingMs)}  ${plural(s.grains, 'grain')} recorded${s.pauses.length ? `  pauses: ${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min after #${p.afterSeq}`).join(', ')}` : ''}${s.closedCleanly ? '' : '  (not closed cleanly)'}`,
-    ),
+    ...audit.sittings.flatMap((s) => [
+      `  ${right(String(s.sitting), 2)}  ${day(s.start)} – ${day(s.end).slice(11)}  counting ${formatDuration(s.countingMs)}  ${plural(s.grains, 'grain')} recorded${s.pauses.length ? `  pauses: ${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min after #${p.afterSeq}`).join(', ')}` : ''}${s.closedCleanly ? '' : '  (not closed cleanly)'}`,
+      `      ${s.start.slice(11, 16)} ${timelineBar(s, 48)} ${s.end.slice(11, 16)}`,
+    ]),
     '',
     'Traverses',
     `  ${right('#', 3)}  ${fit('start (UTC)', 16)}  ${right('time', 8)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new', 3)}  ${right('undo', 4)}  ${right('void', 4)}  ${right('notes', 5)}  new types`,

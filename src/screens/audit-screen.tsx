@@ -3,7 +3,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import { splitKeys } from '../input/key-press.js';
 import { auditKey, eventsOf, START_UI, type AuditUi, type AuditView } from './audit-keys.js';
 import { describeCell } from '../audit/evenness.js';
-import type { LevelAudit, TraverseRow } from '../audit/level-audit.js';
+import { timelineBar, type LevelAudit, type TraverseRow } from '../audit/level-audit.js';
 import type { Verdict } from '../log/verify-log.js';
 import { describeEvent, formatDuration } from '../session/describe-event.js';
 import type { RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
@@ -56,13 +56,13 @@ function grainStatus(read: AuditRead): (e: SessionEvent) => string {
 }
 
 /** The sittings, the cells that stand out, the flags and the corrections, one line each. */
-function overviewLines({ audit }: AuditRead): string[] {
+function overviewLines({ audit }: AuditRead, width: number): string[] {
   const ev = audit.evenness;
   return [
-    ...audit.sittings.map(
-      (s) =>
-        `sitting ${s.sitting}: ${s.start.slice(0, 16).replace('T', ' ')}–${time(s.end)} · counting ${formatDuration(s.countingMs)}${s.pauses.length ? ` · ${plural(s.pauses.length, 'pause')} (${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min`).join(', ')})` : ''}${s.closedCleanly ? '' : ' · not closed cleanly'}`,
-    ),
+    ...audit.sittings.flatMap((s) => [
+      `sitting ${s.sitting}: ${s.start.slice(0, 16).replace('T', ' ')}–${time(s.end)} · counting ${formatDuration(s.countingMs)}${s.pauses.length ? ` · ${plural(s.pauses.length, 'pause')} (${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min`).join(', ')})` : ''}${s.closedCleanly ? '' : ' · not closed cleanly'}`,
+      `  ${s.start.slice(11, 16)} ${timelineBar(s, Math.max(10, Math.min(60, width - 16)))} ${s.end.slice(11, 16)}`,
+    ]),
     ...(ev.ok ? ev.test.flagged.map(describeCell) : []),
     ...audit.flags.map((f) => `[${f.kind}] ${f.text}`),
     ...audit.corrections.map((c) => `#${c.seq} ${c.what}: "${c.reason}"${c.restoredBy ? ` (restored by #${c.restoredBy})` : ''}`),
@@ -175,7 +175,7 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
         // The overview takes the table's room as well.
         <Box flexDirection="column" height={detailRoom + tableRoom + 3}>
           <Text bold>Sittings, flags and corrections (f: back)</Text>
-          {overviewLines(read).slice(0, detailRoom + tableRoom + 2).map((line, i) => (
+          {overviewLines(read, width).slice(0, detailRoom + tableRoom + 2).map((line, i) => (
             <Text key={i} wrap="truncate-end">{line}</Text>
           ))}
         </Box>

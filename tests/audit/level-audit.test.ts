@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { auditLevel, DEFAULT_DOUBLE_PRESS_MS, DEFAULT_GAP_MS } from '../../src/audit/level-audit.js';
+import { auditLevel, DEFAULT_DOUBLE_PRESS_MS, DEFAULT_GAP_MS, timelineBar } from '../../src/audit/level-audit.js';
 import type { EventPayload, OpenEvent, SessionEvent } from '../../src/session/events.js';
 import { foldEvents } from '../../src/session/fold.js';
 import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
@@ -72,6 +72,9 @@ describe('the audit of a level, traverse by traverse', () => {
     expect(audit.countingMs).toBe(s(36));
     expect(audit.flags).toEqual([expect.objectContaining({ kind: 'interruption', seq: 5, traverse: 1 })]);
     expect(audit.flags[0]!.text).toMatch(/11 min without a grain inside traverse 1, before #5/);
+    // Sitting 1 runs 11.5 minutes, 11 of them a pause: the bar is almost all "·".
+    expect(timelineBar(audit.sittings[0]!, 23)).toMatch(/^█·{21}█$/);
+    expect(timelineBar(audit.sittings[1]!, 5)).toBe('█████');
   });
 
   it('flags the same key twice within 120 ms as a possible double press, unless it was undone', () => {
