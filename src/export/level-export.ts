@@ -94,7 +94,11 @@ export function orderLevels(levels: readonly ExportLevel[]): ExportLevel[] {
   return all;
 }
 
-/** One row per level, one count column per taxon; taxa ordered by group, then by first appearance. */
+/**
+ * One row per level, one count column per taxon; taxa ordered by group, then by
+ * first appearance. Marker counts, the pollen sum's concentration and influx come
+ * before the taxa (empty without spike data).
+ */
 export function wideTable(levels: readonly ExportLevel[]): { columns: string[]; rows: Cell[][] } {
   const ordered = orderLevels(levels);
   const taxa = new Map<string, { group: Group; first: number }>();
@@ -105,11 +109,27 @@ export function wideTable(levels: readonly ExportLevel[]): { columns: string[]; 
   const names = [...taxa.entries()]
     .sort(([, a], [, b]) => groupRank(a.group) - groupRank(b.group) || a.first - b.first)
     .map(([name]) => name);
-  const columns = ['level', 'depth', 'site', 'core', 'slide', 'pollen_sum', 'grains', ...names];
+  // Concentration and influx of the pollen sum beside the counts, for the concentration diagram of the core.
+  const columns = ['level', 'depth', 'site', 'core', 'slide', 'pollen_sum', 'grains', 'markers', 'concentration', 'conc_unit', 'influx', ...names];
   const rows = ordered.map((l, i): Cell[] => {
     const h = l.state.header;
     const table = tables[i] as (typeof tables)[number];
-    return [h.level, h.depth, h.site, h.core, h.slide, table.pollenSum, table.grains, ...names.map((t) => l.state.counts[t] ?? 0)];
+    const markers = table.groupTotals.markers;
+    const conc = l.state.spike ? concentration(table.pollenSum, markers, l.state.spike) : null;
+    return [
+      h.level,
+      h.depth,
+      h.site,
+      h.core,
+      h.slide,
+      table.pollenSum,
+      table.grains,
+      l.state.spike ? markers : null,
+      round(conc?.value ?? null, 1),
+      conc ? conc.unit : null,
+      round(conc?.influx ?? null, 2),
+      ...names.map((t) => l.state.counts[t] ?? 0),
+    ];
   });
   return { columns, rows };
 }

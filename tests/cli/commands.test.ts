@@ -61,8 +61,12 @@ describe('the read-only commands on the demo core', () => {
     const rows = parse(run.stdout, { columns: true }) as Record<string, string>[];
     expect(rows.map((r) => r.depth)).toEqual(['12', '36', '60', '84', '108']);
     expect(Number(rows[0]!.pollen_sum)).toBeGreaterThanOrEqual(500);
-    const taxa = Object.keys(rows[0]!).slice(7);
+    const taxa = Object.keys(rows[0]!).slice(11);
     expect(taxa.slice(0, 3)).toEqual(['Quercus', 'Betula', 'Alnus']);
+    // The demo's spike data: concentration and influx of the pollen sum for each level.
+    expect(rows[0]).toMatchObject({ conc_unit: 'grains/cm3' });
+    expect(Number(rows[0]!.concentration)).toBeCloseTo((Number(rows[0]!.pollen_sum) / Number(rows[0]!.markers)) * 12500, 0);
+    expect(Number(rows[0]!.influx)).toBeCloseTo(Number(rows[0]!.concentration) * 0.05, 1);
   });
 
   it('keys draws the layout of a bundled keymap', () => {
