@@ -72,11 +72,6 @@ function findGrain(stack: GrainStack | null, seq: number): GrainStack | undefine
   return undefined;
 }
 
-function taxonOf(stack: GrainStack | null, seq: number): string | undefined {
-  for (let s = stack; s && s.seq >= seq; s = s.below) if (s.seq === seq) return s.taxon;
-  return undefined;
-}
-
 /** The lowest seq of `taxon` still in the stack (the stack is newest first). */
 function firstOf(stack: GrainStack | null, taxon: string): number | undefined {
   let first: number | undefined;
@@ -177,7 +172,7 @@ function step(d: Draft, event: SessionEvent): void {
       d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, below: d.stack };
       return;
     case 'undo': {
-      const taxon = d.stack?.seq === event.of ? d.stack.taxon : taxonOf(d.stack, event.of);
+      const taxon = findGrain(d.stack, event.of)?.taxon;
       const stack = withoutGrain(d.stack, event.of);
       if (stack === undefined || taxon === undefined) {
         d.ignored.push(event.seq);
