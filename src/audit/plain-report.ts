@@ -2,11 +2,11 @@ import type { Verdict } from '../log/verify-log.js';
 import { formatDuration } from '../session/describe-event.js';
 import type { LevelState } from '../session/level-state.js';
 import { fit, plural, right } from '../text/cells.js';
+import { perMinute } from '../text/numbers.js';
 import { describeCell, POOLED } from './evenness.js';
 import { timelineBar, type LevelAudit } from './level-audit.js';
 
 const day = (iso: string | null) => (iso ? iso.replace('T', ' ').slice(0, 16) : '–');
-const perMin = (v: number | null) => (v === null ? '–' : v.toFixed(1));
 
 /** The evenness test in words, a few lines. */
 export function evennessLines(audit: LevelAudit): string[] {
@@ -35,7 +35,7 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
     `integrity: ${verdict.intact ? 'intact' : 'DAMAGED'}: ${verdict.summary}`,
     ...verdict.warnings.map((w) => `  warning: ${w}`),
     '',
-    `${plural(audit.grains, 'grain')} counted · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · counting time ${formatDuration(audit.countingMs)} · ${perMin(audit.perMinute)} grains/min`,
+    `${plural(audit.grains, 'grain')} counted · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · counting time ${formatDuration(audit.countingMs)} · ${perMinute(audit.perMinute)} grains/min`,
     '',
     'Sittings',
     ...audit.sittings.flatMap((s) => [
@@ -47,7 +47,7 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
     `  ${right('#', 3)}  ${fit('start (UTC)', 16)}  ${right('time', 8)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new', 3)}  ${right('undo', 4)}  ${right('void', 4)}  ${right('notes', 5)}  new types`,
     ...audit.traverses.map(
       (t) =>
-        `  ${right(String(t.traverse), 3)}  ${fit(day(t.start), 16)}  ${right(formatDuration(t.activeMs), 8)}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMin(t.perMinute), 5)}  ${right(String(t.newTypes.length), 3)}  ${right(String(t.undos), 4)}  ${right(String(t.voided), 4)}  ${right(String(t.notes), 5)}  ${t.newTypes.join(', ')}${t.voidedWhole ? `  VOIDED: ${t.voidedWhole.reason}` : ''}`,
+        `  ${right(String(t.traverse), 3)}  ${fit(day(t.start), 16)}  ${right(formatDuration(t.activeMs), 8)}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 3)}  ${right(String(t.undos), 4)}  ${right(String(t.voided), 4)}  ${right(String(t.notes), 5)}  ${t.newTypes.join(', ')}${t.voidedWhole ? `  VOIDED: ${t.voidedWhole.reason}` : ''}`,
     ),
     '',
     ...evennessLines(audit),

@@ -1,3 +1,4 @@
+import { shortNumber } from '../text/numbers.js';
 import { grainsToCoverage } from '../stats/coverage.js';
 import { grainsToRelativeError, markersAdded, relativeError, type Spike } from '../stats/concentration.js';
 import type { LevelStats } from '../stats/level-stats.js';
@@ -36,8 +37,6 @@ export interface RuleReport {
   readonly grainsNeeded: number | null;
 }
 
-const trim = (n: number) => String(Number(n.toFixed(4)));
-
 function status(rule: RuleName, label: string, value: number | null, target: number, met: boolean, needed: number | null, note: string | null = null): RuleStatus {
   return { rule, label, value, target, met, grainsNeeded: met ? 0 : needed, note: met || needed !== null ? null : note };
 }
@@ -45,7 +44,7 @@ function status(rule: RuleName, label: string, value: number | null, target: num
 function precision(rules: RuleSet, stats: LevelStats): RuleStatus | null {
   const p = rules.precision;
   if (!p) return null;
-  const label = p.taxa ? `±${trim(p.halfWidth)} pts ${p.taxa.length === 1 ? p.taxa[0] : `${p.taxa.length} taxa`}` : `±${trim(p.halfWidth)} pts ≥${trim(p.share ?? 0)}%`;
+  const label = p.taxa ? `±${shortNumber(p.halfWidth)} pts ${p.taxa.length === 1 ? p.taxa[0] : `${p.taxa.length} taxa`}` : `±${shortNumber(p.halfWidth)} pts ≥${shortNumber(p.share ?? 0)}%`;
   const rows = stats.table.rows.filter((r) =>
     p.taxa ? p.taxa.includes(r.taxon) : r.inSum && r.percent !== null && r.percent >= (p.share ?? 0),
   );

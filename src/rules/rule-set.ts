@@ -1,3 +1,4 @@
+import { shortNumber } from '../text/numbers.js';
 /** How the rules of a set combine: the set is met when all of them are, or when any one is. */
 export type RuleMode = 'all' | 'any';
 
@@ -61,20 +62,18 @@ export function normalRules(r: Partial<RuleSet>): RuleSet {
   };
 }
 
-const trim = (n: number) => String(Number(n.toFixed(4)));
-
 /** The rule set in words, for notices and reports. */
 export function describeRules(r: RuleSet): string {
   const parts: string[] = [];
   if (r.targetSum !== null) parts.push(`pollen sum ${r.targetSum}`);
   if (r.precision) {
-    const which = r.precision.taxa ? r.precision.taxa.join(', ') : `taxa ≥ ${trim(r.precision.share ?? 0)}%`;
-    parts.push(`±${trim(r.precision.halfWidth)} points for ${which}`);
+    const which = r.precision.taxa ? r.precision.taxa.join(', ') : `taxa ≥ ${shortNumber(r.precision.share ?? 0)}%`;
+    parts.push(`±${shortNumber(r.precision.halfWidth)} points for ${which}`);
   }
-  if (r.coverage !== null) parts.push(`coverage ${trim(r.coverage)}`);
+  if (r.coverage !== null) parts.push(`coverage ${shortNumber(r.coverage)}`);
   if (r.plateau !== null) parts.push(`no new type in ${r.plateau} grains`);
   if (r.markers !== null) parts.push(`${r.markers} markers`);
-  if (r.concError !== null) parts.push(`concentration error ≤ ${trim(100 * r.concError)}%`);
+  if (r.concError !== null) parts.push(`concentration error ≤ ${shortNumber(100 * r.concError)}%`);
   const joined = parts.join(r.mode === 'all' ? ' and ' : ' or ');
   return r.minSum !== null ? `${joined}, with a pollen sum of at least ${r.minSum}` : joined;
 }

@@ -9,6 +9,7 @@ import { describeEvent, formatDuration } from '../session/describe-event.js';
 import type { RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
 import type { LevelState } from '../session/level-state.js';
 import { fit, plural, right } from '../text/cells.js';
+import { perMinute } from '../text/numbers.js';
 import { themeFor } from './theme.js';
 import { useTerminalSize } from './terminal-size.js';
 
@@ -30,11 +31,10 @@ export interface AuditSource {
 
 
 const time = (iso: string | null) => (iso ? iso.slice(11, 19) : '–');
-const perMin = (v: number | null) => (v === null ? '–' : v.toFixed(1));
 
 function traverseLine(t: TraverseRow): string {
   const mark = t.voidedWhole ? ' VOID' : '';
-  return `${right(String(t.traverse), 3)} ${fit(time(t.start), 8)} ${right(formatDuration(t.activeMs).slice(3), 5)} ${right(String(t.grains), 5)} ${right(String(t.types), 4)} ${right(perMin(t.perMinute), 5)} ${right(String(t.newTypes.length), 3)} ${right(String(t.undos), 3)} ${right(String(t.voided), 3)} ${right(String(t.notes), 3)}${mark}`;
+  return `${right(String(t.traverse), 3)} ${fit(time(t.start), 8)} ${right(formatDuration(t.activeMs).slice(3), 5)} ${right(String(t.grains), 5)} ${right(String(t.types), 4)} ${right(perMinute(t.perMinute), 5)} ${right(String(t.newTypes.length), 3)} ${right(String(t.undos), 3)} ${right(String(t.voided), 3)} ${right(String(t.notes), 3)}${mark}`;
 }
 
 /** What became of each grain, for the event list of a traverse. */
@@ -156,7 +156,7 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
     <Box flexDirection="column" width={width} height={height}>
       <Text bold color={theme.accent} wrap="truncate-end">{`Audit · ${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · slide ${h.slide ?? '–'}`}</Text>
       <Text wrap="truncate-end" color={read.verdict.intact || read.writing ? undefined : theme.error}>
-        {`${read.verdict.intact ? 'file intact' : read.writing ? 'last line incomplete (being written?)' : 'FILE DAMAGED'} · ${plural(audit.grains, 'grain')} · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · ${formatDuration(audit.countingMs)} counting · ${perMin(audit.perMinute)}/min`}
+        {`${read.verdict.intact ? 'file intact' : read.writing ? 'last line incomplete (being written?)' : 'FILE DAMAGED'} · ${plural(audit.grains, 'grain')} · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · ${formatDuration(audit.countingMs)} counting · ${perMinute(audit.perMinute)}/min`}
       </Text>
       <Text wrap="truncate-end">{evenLine}</Text>
       <Text wrap="truncate-end" color={audit.flags.length ? theme.warning : undefined}>

@@ -7,6 +7,16 @@ export function compact(n: number): string {
   return `${(n / 1_000_000).toFixed(2)}M`;
 }
 
+/** A number as typed, without float noise: 0.1 + 0.2 → "0.3", 5 → "5". */
+export function shortNumber(n: number): string {
+  return String(Number(n.toFixed(4)));
+}
+
+/** Grains per minute, or "–" when there is no rate. */
+export function perMinute(v: number | null): string {
+  return v === null ? '–' : v.toFixed(1);
+}
+
 /** A value of a rule in its own unit, short. */
 export function ruleValue(rule: string, v: number | null): string {
   if (v === null) return '–';
