@@ -1,5 +1,6 @@
 import type { TraverseRow } from '../audit/level-audit.js';
 import type { KeyPress } from '../input/key-press.js';
+import { editLine } from '../input/line-edit.js';
 import type { RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
 import type { LevelState } from '../session/level-state.js';
 
@@ -34,22 +35,14 @@ export const START_UI: AuditUi = { selected: 0, focus: 'traverses', grainIndex: 
  * text-input component takes as text.
  */
 function reasonKey(ui: AuditUi & { asking: Asking }, key: KeyPress): AuditUi {
-  switch (key.kind) {
-    case 'char':
-      return { ...ui, reason: ui.reason + key.char, message: null };
-    case 'backspace':
-      return { ...ui, reason: [...ui.reason].slice(0, -1).join('') };
-    case 'escape':
-    case 'interrupt':
-      return { ...ui, asking: null, reason: '', message: 'cancelled: nothing recorded' };
-    case 'enter': {
-      const reason = ui.reason.trim();
-      if (!reason) return { ...ui, message: 'a correction needs a reason; type one, or Esc to cancel' };
-      return { ...ui, asking: null, reason: '', pending: { ...ui.asking.payload, reason } as VoidPayload | RestorePayload };
-    }
-    default:
-      return ui;
-  }
+  // Tab has no place in a one-line reason; Ctrl-C cancels the reason, not the audit.
+  if (key.kind === 'tab') return ui;
+  const next = editLine(ui.reason, key);
+  if (next === 'cancel' || next === 'quit') return { ...ui, asking: null, reason: '', message: 'cancelled: nothing recorded' };
+  if (next !== 'enter') return { ...ui, reason: next, message: key.kind === 'char' ? null : ui.message };
+  const reason = ui.reason.trim();
+  if (!reason) return { ...ui, message: 'a correction needs a reason; type one, or Esc to cancel' };
+  return { ...ui, asking: null, reason: '', pending: { ...ui.asking.payload, reason } as VoidPayload | RestorePayload };
 }
 
 /** What the keys act on: the traverses and what counts now. */

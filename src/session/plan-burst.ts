@@ -1,5 +1,6 @@
 import { GROUPS } from '../keymap/groups.js';
 import type { KeyPress } from '../input/key-press.js';
+import { editLine } from '../input/line-edit.js';
 import { resolveKey } from '../keymap/resolve-key.js';
 import { decide } from './command-event.js';
 import type { EventPayload, SessionEvent } from './events.js';
@@ -27,26 +28,6 @@ export interface BurstPlan {
 
 export const FINISH_PROMPT = 'Finish this level? y = finish and quit, any other key = go on counting';
 const NOT_FINISHED = 'not finished: counting goes on (that key counted nothing)';
-
-/** A key while a line is typed: the text so far, or what the key did. */
-function edit(text: string, key: KeyPress): string | 'enter' | 'cancel' | 'quit' {
-  switch (key.kind) {
-    case 'char':
-      return text + key.char;
-    case 'backspace':
-      return [...text].slice(0, -1).join('');
-    case 'tab':
-      return `${text} `;
-    case 'enter':
-      return 'enter';
-    case 'escape':
-      return 'cancel';
-    case 'interrupt':
-      return 'quit';
-    default:
-      return text;
-  }
-}
 
 /**
  * What a burst of keys means, in order. Each key is decided on the state as it
@@ -102,7 +83,7 @@ export function planBurst(start: LevelState, startMode: InputMode | null, keys: 
           say('help closed: that key counted nothing');
           continue;
         case 'note': {
-          const next = edit(mode.text, key);
+          const next = editLine(mode.text, key);
           if (next === 'quit') return plan(true);
           if (next === 'cancel') {
             mode = null;
@@ -121,7 +102,7 @@ export function planBurst(start: LevelState, startMode: InputMode | null, keys: 
           continue;
         }
         case 'new-type': {
-          const next = edit(mode.text, key);
+          const next = editLine(mode.text, key);
           if (next === 'quit') return plan(true);
           if (next === 'cancel') {
             mode = null;
