@@ -83,6 +83,9 @@ export interface Correction {
 
 export interface LevelAudit {
   readonly traverses: readonly TraverseRow[];
+  /** seq of every grain that counts now, and of every grain undone at the eyepiece. */
+  readonly counting: ReadonlySet<number>;
+  readonly undone: ReadonlySet<number>;
   readonly sittings: readonly SittingSpan[];
   readonly countingMs: number;
   readonly grains: number;
@@ -147,6 +150,7 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
 
   // Corrections are made later, in the audit: they and the rule verdicts they cause are no part of the counting time.
   let correcting = false;
+  const voidTraverse = new Map<number, number>();
   let lastCounting = events[0]?.at ?? state.header.at;
   for (const e of events) {
     if (e.type === 'open') {
@@ -156,7 +160,11 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
     if (e.type === 'void' || e.type === 'restore') correcting = true;
     else if (e.type !== 'rules-met' && e.type !== 'rules-unmet') correcting = false;
     if (correcting) {
-      if (e.type === 'void') into(e.grain !== null ? (grainTraverse.get(e.grain) ?? current) : (e.traverse as number), e);
+      if (e.type === 'void') {
+        const t = e.grain !== null ? (grainTraverse.get(e.grain) ?? current) : (e.traverse as number);
+        voidTraverse.set(e.seq, t);
+        into(t, e);
+      }
       continue;
     }
     lastCounting = e.at;
@@ -241,11 +249,10 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
     }
     if (e.type === 'restore') corrections.push({ seq: e.seq, at: e.at, what: `restore of void #${e.of}`, reason: e.reason, standing: true, restoredBy: null });
   }
+  // A restore is listed under the traverse of the void it takes back.
   for (const e of events) {
-    if (e.type === 'restore') {
-      const t = [...traverseEvents.entries()].find(([, list]) => list.some((x) => x.seq === e.of))?.[0];
-      if (t !== undefined) into(t, e);
-    }
+    const t = e.type === 'restore' ? voidTraverse.get(e.of) : undefined;
+    if (t !== undefined) into(t, e);
   }
 
   // What counts now, by traverse.
@@ -289,17 +296,20 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
       };
     });
 
-  // Evenness of the pollen-sum types across traverses.
+  // Evenness of the pollen-sum types across traverses: the same counts, taxon by taxon.
   const table = new Map<string, Map<number, number>>();
-  for (const { taxon, traverse } of counted.values()) {
-    if (!inPollenSum(state.keymap, taxon)) continue;
-    if (!table.has(taxon)) table.set(taxon, new Map());
-    const m = table.get(taxon) as Map<number, number>;
-    m.set(traverse, (m.get(traverse) ?? 0) + 1);
+  for (const [traverse, byTaxon] of countsBy) {
+    for (const [taxon, n] of byTaxon) {
+      if (!inPollenSum(state.keymap, taxon)) continue;
+      if (!table.has(taxon)) table.set(taxon, new Map());
+      (table.get(taxon) as Map<number, number>).set(traverse, n);
+    }
   }
   const countingMs = sittings.reduce((a, s) => a + s.countingMs, 0);
   return {
     traverses,
+    counting: new Set(counted.keys()),
+    undone,
     sittings,
     countingMs,
     grains: state.grains,

@@ -39,11 +39,10 @@ function traverseLine(t: TraverseRow): string {
 
 /** What became of each grain, for the event list of a traverse. */
 function grainStatus(read: AuditRead): (e: SessionEvent) => string {
-  const undone = new Set<number>();
+  const { undone } = read.audit;
   const voidedBy = new Map<number, number>();
   for (const [voidSeq, grains] of Object.entries(read.state.voids)) for (const g of grains) voidedBy.set(g.seq, Number(voidSeq));
   const flagged = new Map(read.audit.flags.map((f) => [f.seq, f.kind]));
-  for (const t of read.audit.traverses) for (const e of t.events) if (e.type === 'undo') undone.add(e.of);
   return (e) => {
     if (e.type !== 'grain') return '';
     const parts: string[] = [];
@@ -69,6 +68,11 @@ function overviewLines({ audit }: AuditRead, width: number): string[] {
   ];
 }
 
+function viewOf(read: AuditRead): AuditView {
+  const { counting } = read.audit;
+  return { traverses: read.audit.traverses, state: read.state, statusOf: grainStatus(read), counts: (seq) => counting.has(seq) };
+}
+
 function window<T>(items: readonly T[], selected: number, room: number): { shown: readonly T[]; offset: number } {
   if (items.length <= room) return { shown: items, offset: 0 };
   const offset = Math.max(0, Math.min(items.length - room, selected - Math.floor(room / 2)));
@@ -81,23 +85,20 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
   const theme = themeFor();
   const [read, setRead] = useState<AuditRead>(() => source.read());
   const [ui, setUi] = useState<AuditUi>(START_UI);
-  // Keys are applied to these, never to values captured at the last render.
-  const readRef = useRef(read);
+  // Keys are applied to these, never to values captured at the last render; the view is made once per read.
+  const viewRef = useRef<AuditView | null>(null);
+  viewRef.current ??= viewOf(read);
   const uiRef = useRef(ui);
-  const viewOf = (r: AuditRead): AuditView => {
-    const counting = new Set<number>();
-    for (let s = r.state.stack; s; s = s.below) counting.add(s.seq);
-    return { traverses: r.audit.traverses, state: r.state, statusOf: grainStatus(r), counts: (seq) => counting.has(seq) };
+  const adopt = (next: AuditRead) => {
+    viewRef.current = viewOf(next);
+    setRead(next);
   };
 
   // Follow the file while another exine counts it.
   useEffect(() => {
     const timer = setInterval(() => {
       try {
-        if (source.changed()) {
-          readRef.current = source.read();
-          setRead(readRef.current);
-        }
+        if (source.changed()) adopt(source.read());
       } catch (error) {
         uiRef.current = { ...uiRef.current, message: `could not re-read the file: ${(error as Error).message}` };
         setUi(uiRef.current);
@@ -109,13 +110,12 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
 
   useInput((input, key) => {
     for (const press of splitKeys(input, key)) {
-      let next = auditKey(uiRef.current, press, viewOf(readRef.current));
+      let next = auditKey(uiRef.current, press, viewRef.current as AuditView);
       if (next.pending) {
         const what = (next.pending.type === 'restore' ? `restore of void #${next.pending.of}` : next.pending.grain !== null ? `void of grain #${next.pending.grain}` : `void of traverse ${next.pending.traverse}`);
         try {
           source.correct(next.pending);
-          readRef.current = source.read();
-          setRead(readRef.current);
+          adopt(source.read());
           next = { ...next, pending: null, message: `recorded: ${what}, "${next.pending.reason}"` };
         } catch (error) {
           next = { ...next, pending: null, message: `not recorded: ${(error as Error).message}` };
@@ -135,7 +135,7 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
   const { selected, focus, grainIndex, overview, asking, message } = ui;
   const traverse = audit.traverses[Math.min(selected, audit.traverses.length - 1)] as TraverseRow | undefined;
   const grains = useMemo(() => eventsOf(traverse), [traverse]);
-  const statusOf = useMemo(() => grainStatus(read), [read]);
+  const { statusOf } = viewRef.current;
 
   const width = columns ?? terminal.columns;
   const height = Math.max(16, (rows ?? terminal.rows) - 1);

@@ -51,6 +51,9 @@ describe('the audit of a level, traverse by traverse', () => {
     expect(t2).toMatchObject({ grains: 4, types: 3, undos: 0, activeMs: s(50) });
     expect([...t2!.newTypes].sort()).toEqual(['Corylus', 'Poaceae']);
     expect(t1!.start).toBe(new Date(T0 + s(10)).toISOString());
+    expect([...audit.undone]).toEqual([7]);
+    expect(audit.counting.size).toBe(9);
+    expect(audit.counting.has(7)).toBe(false);
   });
 
   it('sittings, pauses and counting time; a pause inside a traverse is flagged as an interruption', () => {
@@ -124,6 +127,8 @@ describe('the audit of a level, traverse by traverse', () => {
       [11, true, null],
     ]);
     expect(audit.corrections[1]!.what).toBe('void of grain #4 (Betula, traverse 1)');
+    // The restore is listed under the traverse of the void it takes back.
+    expect(audit.traverses[0]!.events.map((e) => e.type)).toContain('restore');
     expect(audit.countingMs).toBe(s(60));
     expect(audit.sittings[0]!.end).toBe(new Date(T0 + s(60)).toISOString());
   });
