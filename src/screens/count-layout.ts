@@ -11,8 +11,8 @@ export interface LayoutNeeds {
   /** Height of the sum panel, whole or compact (two groups a line). */
   readonly sumHeight: (compact: boolean) => number;
   readonly rulesHeight: number;
-  /** Lines the rare-types panel would take at a column width. */
-  readonly rareLines: (width: number) => number;
+  /** Lines the rare-types panel would take in full. */
+  readonly rareLines: number;
 }
 
 export interface CountLayout {
@@ -47,7 +47,7 @@ export function countLayout(n: LayoutNeeds): CountLayout {
   const plotRows = Math.max(0, Math.min(wide ? 12 : 8, left - gap - (wide ? 3 : 7)));
   const legend = wide || plotRows >= 5;
   const curveHeight = plotRows >= 2 ? saturationHeight(plotRows, legend) + gap : 0;
-  const rareRoom = wide ? Math.max(3, Math.min(n.rareLines(colWidth), Math.floor(mainHeight / 2))) : 0;
+  const rareRoom = wide ? Math.max(3, Math.min(n.rareLines, Math.floor(mainHeight / 2))) : 0;
   // One line of the recent events' room is its title.
   const recentRoom = Math.max(1, (wide ? mainHeight - rareRoom - gap : left - curveHeight - gap) - 1);
   return { mainHeight, taxonWidth, sideWidth, wide, colWidth, compactSum, gap, plotRows, legend, rareRoom, recentRoom };

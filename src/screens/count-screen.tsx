@@ -17,7 +17,7 @@ import { countLayout } from './count-layout.js';
 import { saturationCurve } from '../stats/accumulation.js';
 import { ringOnce } from './bell.js';
 import { HelpOverlay } from './help-overlay.js';
-import { rareLines, rareTypes } from './rare-types.js';
+import { rareLineCount, rareLines, rareTypes } from './rare-types.js';
 import { LinesPanel } from './lines-panel.js';
 import { saturationLines } from './saturation-panel.js';
 import type { InputMode } from '../session/input-mode.js';
@@ -140,16 +140,16 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   // The status takes the lines it needs (up to 3; word wrap wastes some of each line).
   const statusLines = Math.min(3, Math.max(1, Math.ceil([...status].length / Math.max(20, width - 12))));
   const met = report.rules.met;
+  const rulesHeight = rulesPanelHeight(report.rules, report.stats.concentration);
   const { mainHeight, taxonWidth, sideWidth, wide, colWidth, compactSum, gap, plotRows, legend, rareRoom, recentRoom } = countLayout({
     width,
     height,
     statusLines,
     banner: met,
     sumHeight: (compact) => sumPanelHeight(table, state.rules.targetSum, compact),
-    rulesHeight: rulesPanelHeight(report.rules, report.stats.concentration),
-    rareLines: (w) => rareLines(rare, rareThreshold, w, Number.POSITIVE_INFINITY).length,
+    rulesHeight,
+    rareLines: rareLineCount(rare),
   });
-  const rulesHeight = rulesPanelHeight(report.rules, report.stats.concentration);
   const showCurve = plotRows >= 2;
   const h = state.header;
   const where = [h.site, h.core].filter(Boolean).join(' ');

@@ -19,6 +19,11 @@ function noteWords(n: NoteRecord): string {
   return `${n.traverse === null ? '' : `t${n.traverse} `}${n.stage ? `@${n.stage.x},${n.stage.y} ` : ''}${n.text}`.trim();
 }
 
+/** Lines the panel takes in full: its title, a line per type and one per note (or "none yet"). */
+export function rareLineCount(rare: readonly RareType[]): number {
+  return 1 + Math.max(1, rare.reduce((n, r) => n + 1 + r.notes.length, 0));
+}
+
 export function rareLines(rare: readonly RareType[], threshold: number, width: number, room: number): string[] {
   const lines = [fit(`Rare types (≤${threshold})`, width)];
   if (rare.length === 0) return [...lines, fit('none yet', width)];

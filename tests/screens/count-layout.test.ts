@@ -9,7 +9,7 @@ const needs = (width: number, height: number, over: Partial<LayoutNeeds> = {}): 
   banner: false,
   sumHeight: (compact) => 1 + (compact ? 3 : 6),
   rulesHeight: 5,
-  rareLines: () => 8,
+  rareLines: 8,
   ...over,
 });
 
@@ -38,5 +38,15 @@ describe('the counting screen layout', () => {
     const l = countLayout(needs(80, 16));
     expect(l.plotRows).toBeLessThan(2);
     expect(l.recentRoom).toBeGreaterThanOrEqual(1);
+  });
+});
+
+describe('the rare-types panel height', () => {
+  it('is its title, a line per type and one per note, and two lines when empty', async () => {
+    const { rareLineCount, rareLines } = await import('../../src/screens/rare-types.js');
+    const note = { seq: 9, at: '', grain: 3, taxon: 'Tilia', traverse: 1, text: 'x', stage: null };
+    const rare = [{ taxon: 'Tilia', count: 1, notes: [note, note] }, { taxon: 'Ulmus', count: 2, notes: [] }];
+    expect(rareLineCount(rare)).toBe(rareLines(rare, 2, 30, Number.POSITIVE_INFINITY).length);
+    expect(rareLineCount([])).toBe(rareLines([], 2, 30, Number.POSITIVE_INFINITY).length);
   });
 });
