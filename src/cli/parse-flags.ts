@@ -17,10 +17,11 @@ export function parseFlags<O extends Options>(command: string, args: string[], o
   }
 }
 
-export function positiveInteger(command: string, flag: string, value: string | undefined): number | undefined {
+/** `hint` is added to the message, e.g. " (or off to drop the rule)". */
+export function positiveInteger(command: string, flag: string, value: string | undefined, hint = ''): number | undefined {
   if (value === undefined) return undefined;
   if (!/^\d+$/.test(value) || Number(value) <= 0) {
-    throw new UsageError(`exine ${command}: --${flag} must be a whole number above 0, not "${value}"`);
+    throw new UsageError(`exine ${command}: --${flag} must be a whole number above 0, not "${value}"${hint}`);
   }
   return Number(value);
 }

@@ -1,4 +1,5 @@
 import { UsageError } from '../errors.js';
+import { positiveInteger } from './parse-flags.js';
 import type { Keymap } from '../keymap/keymap.js';
 import { DEFAULT_RULES, NO_RULES, type PrecisionRule, type RuleSet } from '../rules/rule-set.js';
 import type { Spike } from '../stats/concentration.js';
@@ -28,7 +29,7 @@ type Flags = Readonly<Record<string, string | undefined>>;
 const RULE_FLAGS = ['target', 'precision', 'precision-share', 'precision-taxa', 'coverage', 'plateau', 'markers', 'conc-error', 'rule-mode', 'min-sum'];
 const SPIKE_FLAGS = ['tablets', 'per-tablet', 'per-tablet-sd', 'volume', 'mass', 'accumulation-rate'];
 
-const bad = (flag: string, what: string, value: string, hint = '') => new UsageError(`exine count: --${flag} must be ${what}, not "${value}"${hint}`);
+const bad = (flag: string, what: string, value: string) => new UsageError(`exine count: --${flag} must be ${what}, not "${value}"`);
 
 /** undefined: not given; null: "off" (remove the rule on resume); else the value. */
 function read<T>(flags: Flags, flag: string, parse: (v: string) => T): T | null | undefined {
@@ -39,10 +40,7 @@ function read<T>(flags: Flags, flag: string, parse: (v: string) => T): T | null 
 }
 
 function wholeAbove0(flag: string) {
-  return (v: string) => {
-    if (!/^\d+$/.test(v) || Number(v) <= 0) throw bad(flag, 'a whole number above 0', v, ' (or off to drop the rule)');
-    return Number(v);
-  };
+  return (v: string) => positiveInteger('count', flag, v, ' (or off to drop the rule)') as number;
 }
 
 function positiveNumber(flag: string, allowZero = false) {
