@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { GROUPS } from '../keymap/groups.js';
+import { isPrintableKey } from '../keymap/parse-keymap.js';
 import type { SessionEvent } from '../session/events.js';
 
 // Validation of lines read back from a session file. Fields written by a later exine
@@ -79,7 +80,8 @@ const taxonEvent = z.object({
   type: z.literal('taxon'),
   taxon: z.string().trim().min(1),
   group: z.enum(GROUPS),
-  key: z.string().refine((k) => [...k].length === 1 && (k.codePointAt(0) ?? 0) >= 0x21, { message: 'a key is one printable character' }),
+  // As an action key: one printable character, not a space (the keymap's own rule).
+  key: z.string().refine((k) => isPrintableKey(k) && k !== ' ', { message: 'a key is one printable character' }),
 });
 const sitting = z.object({ ...stamp, type: z.literal('sitting'), sitting: z.number().int().positive() });
 const ruleChange = z.object({ ...stamp, type: z.literal('rules'), rules, spike });

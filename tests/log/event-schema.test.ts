@@ -69,3 +69,11 @@ describe('rules and spike data in the file', () => {
   });
 });
 
+
+describe('a type added while counting', () => {
+  const stamp = { seq: 5, at: '2026-02-20T10:00:00.000Z', prev: 'x', type: 'taxon', taxon: 'Ilex', group: 'shrubs' };
+  it('takes one printable key, as a keymap does', () => {
+    expect(parseEventObject({ ...stamp, key: 'A' }).ok).toBe(true);
+    for (const key of [' ', 'AB', '\x7f', '\x85', '']) expect(parseEventObject({ ...stamp, key }).ok, JSON.stringify(key)).toBe(false);
+  });
+});
