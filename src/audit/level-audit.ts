@@ -322,6 +322,11 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
   };
 }
 
+/** 'void of traverse 4: "stage slipped" (restored by #626)'. */
+export function describeCorrection(c: Correction): string {
+  return `${c.what}: "${c.reason}"${c.restoredBy ? ` (restored by #${c.restoredBy})` : ''}`;
+}
+
 /**
  * A sitting as a bar of `width` cells, start to end: "█" where counting went on,
  * "·" where a pause covers the whole cell. Readable in monochrome.

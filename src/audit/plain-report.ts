@@ -4,7 +4,7 @@ import type { LevelState } from '../session/level-state.js';
 import { fit, plural, right } from '../text/cells.js';
 import { perMinute } from '../text/numbers.js';
 import { describeCell, POOLED } from './evenness.js';
-import { timelineBar, type LevelAudit } from './level-audit.js';
+import { describeCorrection, timelineBar, type LevelAudit } from './level-audit.js';
 
 const day = (iso: string | null) => (iso ? iso.replace('T', ' ').slice(0, 16) : '–');
 
@@ -60,7 +60,7 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
     ...(state.addedTypes.length ? [`Types added while counting: ${state.addedTypes.map((t) => `${t} (key ${Object.entries(state.keymap.keys).find(([, b]) => b.taxon === t)?.[0] ?? '?'})`).join(', ')}`] : []),
     '',
     audit.corrections.length ? `Corrections (${audit.corrections.length})` : 'Corrections: none',
-    ...audit.corrections.map((c) => `  #${c.seq} ${day(c.at)}  ${c.what}: "${c.reason}"${c.restoredBy ? ` (restored by #${c.restoredBy})` : ''}`),
+    ...audit.corrections.map((c) => `  #${c.seq} ${day(c.at)}  ${describeCorrection(c)}`),
   ];
   return `${lines.join('\n')}\n`;
 }

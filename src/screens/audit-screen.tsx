@@ -3,7 +3,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import { splitKeys } from '../input/key-press.js';
 import { auditKey, eventsOf, START_UI, type AuditUi, type AuditView } from './audit-keys.js';
 import { describeCell } from '../audit/evenness.js';
-import { timelineBar, type LevelAudit, type TraverseRow } from '../audit/level-audit.js';
+import { describeCorrection, timelineBar, type LevelAudit, type TraverseRow } from '../audit/level-audit.js';
 import type { Verdict } from '../log/verify-log.js';
 import { describeEvent, formatDuration } from '../session/describe-event.js';
 import type { RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
@@ -64,7 +64,7 @@ function overviewLines({ audit }: AuditRead, width: number): string[] {
     ]),
     ...(ev.ok ? ev.test.flagged.map(describeCell) : []),
     ...audit.flags.map((f) => `[${f.kind}] ${f.text}`),
-    ...audit.corrections.map((c) => `#${c.seq} ${c.what}: "${c.reason}"${c.restoredBy ? ` (restored by #${c.restoredBy})` : ''}`),
+    ...audit.corrections.map((c) => `#${c.seq} ${describeCorrection(c)}`),
   ];
 }
 
