@@ -12,7 +12,7 @@ import { describeRules, sameRules, type RuleSet } from '../rules/rule-set.js';
 import type { Spike } from '../stats/concentration.js';
 import { rulesSignal } from './rules-signal.js';
 import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent, type RestorePayload, type SessionEvent, type VoidPayload } from './events.js';
-import { applyEvent, foldEvents, startFold, type Folding } from './fold.js';
+import { applyEvent, applyEvents, foldEvents, startFold, type Folding } from './fold.js';
 import type { LevelState } from './level-state.js';
 
 export interface OpenedLevel {
@@ -70,9 +70,8 @@ export function createLevel(path: string, level: NewLevel, options: WriterOption
       options,
     );
     try {
-      let state = applyEvent(foldEvents(event as OpenEvent, level.keymap, []), writer.append({ type: 'sitting', sitting: 1 }));
-      const signal = rulesSignal(state);
-      if (signal) state = applyEvent(state, writer.append(signal));
+      // No rule set is met by an empty count, so there is no verdict to record yet.
+      const state = applyEvent(foldEvents(event as OpenEvent, level.keymap, []), writer.append({ type: 'sitting', sitting: 1 }));
       return { writer, state, notices: [] };
     } catch (error) {
       writer.close();
@@ -182,10 +181,9 @@ export function correctLevel(path: string, payload: VoidPayload | RestorePayload
     if (trial.ignored.includes(state.lastSeq + 1)) throw new ExineError(`${path}: ${whyNot(state, payload)}; nothing was changed`);
     const writer = SessionWriter.resume(path, scan.goodBytes, state.lastSeq, scan.lastHash, lock, options);
     try {
-      let next = applyEvent(state, writer.append(payload));
-      const signal = rulesSignal(next);
-      if (signal) next = applyEvent(next, writer.append(signal));
-      return next;
+      // The correction and the verdict it brings go to disk in one write, as a burst of keys does.
+      const signal = rulesSignal(trial);
+      return applyEvents(state, writer.appendAll(signal ? [payload, signal] : [payload]));
     } finally {
       writer.close();
     }
