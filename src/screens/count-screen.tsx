@@ -55,38 +55,18 @@ export interface CountScreenProps {
   readonly breakMinutes?: number | null;
 }
 
-/** Three bells, once per new rules-met event of this sitting (not for one already in the file). */
-function useStopBell(metSeq: number | null, enabled: boolean): void {
+/**
+ * Ring when `value` rises above the last value seen: a new rules-met event (its
+ * seq), one more type, one more break span. What was already so when the screen
+ * opened does not ring.
+ */
+function useRingOnRise(value: number, enabled: boolean, ring: (stdout: NodeJS.WriteStream) => void): void {
   const { stdout } = useStdout();
-  const seen = useRef(metSeq);
+  const seen = useRef(value);
   useEffect(() => {
-    if (metSeq === null || metSeq === seen.current) return;
-    seen.current = metSeq;
-    if (enabled) ringStopSignal(stdout);
-  }, [metSeq, enabled, stdout]);
-}
-
-/** One bell when the number of types counted grows: a new type is on the slide. */
-function useNewTypeBell(types: number, enabled: boolean): void {
-  const { stdout } = useStdout();
-  const seen = useRef(types);
-  useEffect(() => {
-    if (types > seen.current && enabled) ringOnce(stdout);
-    seen.current = types;
-  }, [types, enabled, stdout]);
-}
-
-/** True once the sitting has run for `minutes`; one bell each time another such span has passed. */
-function useBreakReminder(elapsedMs: number, minutes: number | null, enabled: boolean): boolean {
-  const { stdout } = useStdout();
-  const span = minutes === null ? null : minutes * 60_000;
-  const due = span === null ? 0 : Math.floor(elapsedMs / span);
-  const rung = useRef(due);
-  useEffect(() => {
-    if (due > rung.current && enabled) ringOnce(stdout);
-    rung.current = due;
-  }, [due, enabled, stdout]);
-  return due > 0;
+    if (value > seen.current && enabled) ring(stdout);
+    seen.current = value;
+  }, [value, enabled, stdout, ring]);
 }
 
 /** The pollen and spore types counted so far (markers, indeterminables and charcoal are not discoveries). */
@@ -116,10 +96,13 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   const theme = themeFor();
   const now = useNow(1000);
   const sittingMs = now - Date.parse(state.sittingStartedAt);
-  useStopBell(state.lastRulesMet?.seq ?? null, bell);
   const newTypes = useMemo(() => typesFound(state), [state]);
-  useNewTypeBell(newTypes.size, bell);
-  const breakDue = useBreakReminder(sittingMs, breakMinutes, bell);
+  // Break spans passed in this sitting: the reminder shows from the first on, and each new one rings.
+  const breaks = breakMinutes === null ? 0 : Math.floor(sittingMs / (breakMinutes * 60_000));
+  const breakDue = breaks > 0;
+  useRingOnRise(state.lastRulesMet?.seq ?? 0, bell, ringStopSignal);
+  useRingOnRise(newTypes.size, bell, ringOnce);
+  useRingOnRise(breaks, bell, ringOnce);
 
   // Every key of a burst is applied in order against the session, never against a rendered value.
   useInput((input, key) => {
