@@ -1,6 +1,6 @@
 import { inPollenSum } from '../keymap/keymap.js';
-import type { SessionEvent } from '../session/events.js';
-import type { LevelState } from '../session/level-state.js';
+import type { SessionEvent } from '../model/events.js';
+import type { LevelState } from '../model/level-state.js';
 import { evennessAcrossTraverses, type Evenness } from './evenness.js';
 
 export interface AuditOptions {

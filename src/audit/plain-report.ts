@@ -1,6 +1,6 @@
 import type { Verdict } from '../log/verify-log.js';
-import { formatDuration } from '../session/describe-event.js';
-import type { LevelState } from '../session/level-state.js';
+import { formatDuration } from '../text/durations.js';
+import type { LevelState } from '../model/level-state.js';
 import { fit, plural, right } from '../text/cells.js';
 import { perMinute } from '../text/numbers.js';
 import { describeCell, POOLED } from './evenness.js';

@@ -4,10 +4,10 @@ import { ExineError } from '../errors.js';
 import { readSessionBytes } from '../io/read-session-bytes.js';
 import { scanLog } from '../log/scan-log.js';
 import { verdictOf } from '../log/verify-log.js';
-import type { OpenEvent, RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
-import { foldEvents } from '../session/fold.js';
+import type { OpenEvent, RestorePayload, SessionEvent, VoidPayload } from '../model/events.js';
+import { foldEvents } from '../model/fold.js';
 import { correctLevel } from '../session/session-files.js';
-import type { AuditSource } from '../screens/audit-screen.js';
+import type { AuditSource } from './audit-source.js';
 import { auditLevel, type AuditOptions } from './level-audit.js';
 
 /** Everything the audit shows, read without a lock and without changing the file. */

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { loadKeymap } from '../keymap/load-keymap.js';
 import { encodeLine } from '../log/line-codec.js';
 import { DEFAULT_RULES } from '../rules/rule-set.js';
-import { FORMAT_VERSION, type EventPayload } from '../session/events.js';
+import { FORMAT_VERSION, type EventPayload } from '../model/events.js';
 import { readLevel, resumeLevel } from '../session/session-files.js';
 import { seededRandom } from '../demo/seeded-random.js';
 import { fmt, ms, ratio, summarise } from './stats.js';

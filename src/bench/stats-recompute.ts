@@ -1,8 +1,8 @@
 import { NO_RULES, type RuleSet } from '../rules/rule-set.js';
 import { syntheticKeymap } from './synthetic-keymap.js';
-import type { OpenEvent, SessionEvent } from '../session/events.js';
-import { applyEvent, startFold } from '../session/fold.js';
-import { levelReport } from '../session/rules-signal.js';
+import type { OpenEvent, SessionEvent } from '../model/events.js';
+import { applyEvent, startFold } from '../model/fold.js';
+import { levelReport } from '../rules/level-report.js';
 import { levelSummary } from '../export/level-summary.js';
 import { saturationCurve } from '../stats/accumulation.js';
 import { seededRandom } from '../demo/seeded-random.js';

@@ -7,10 +7,10 @@ import type { Keymap } from '../keymap/keymap.js';
 import { encodeLine } from '../log/line-codec.js';
 import { DEFAULT_RULES, NO_RULES, type RuleSet } from '../rules/rule-set.js';
 import type { Spike } from '../stats/concentration.js';
-import { FORMAT_VERSION, type EventPayload, type OpenEvent, type SessionEvent } from '../session/events.js';
-import { applyEvent, initialState } from '../session/fold.js';
-import type { LevelState } from '../session/level-state.js';
-import { rulesSignal } from '../session/rules-signal.js';
+import { FORMAT_VERSION, type EventPayload, type OpenEvent, type SessionEvent } from '../model/events.js';
+import { applyEvent, initialState } from '../model/fold.js';
+import type { LevelState } from '../model/level-state.js';
+import { rulesSignal } from '../model/rules-signal.js';
 import { pickWeighted, seededRandom } from './seeded-random.js';
 
 interface DemoLevel {

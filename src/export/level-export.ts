@@ -1,5 +1,5 @@
 import { groupRank, type Group } from '../keymap/groups.js';
-import type { LevelState } from '../session/level-state.js';
+import type { LevelState } from '../model/level-state.js';
 import { clopperPearsonInterval } from '../stats/clopper-pearson.js';
 import { concentration } from '../stats/concentration.js';
 import { levelTable } from '../stats/level-table.js';

@@ -1,6 +1,6 @@
 import { describeRules } from '../rules/rule-set.js';
-import type { LevelState } from '../session/level-state.js';
-import { levelReport } from '../session/rules-signal.js';
+import type { LevelState } from '../model/level-state.js';
+import { levelReport } from '../rules/level-report.js';
 import { clopperPearsonInterval } from '../stats/clopper-pearson.js';
 import { rarefy } from '../stats/rarefaction.js';
 import { sisonGlazIntervals } from '../stats/simultaneous.js';

@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { GROUPS } from '../keymap/groups.js';
 import { isPrintableKey } from '../keymap/parse-keymap.js';
-import type { SessionEvent } from '../session/events.js';
+import { RULE_NAMES } from '../rules/rule-set.js';
+import type { SessionEvent } from '../model/events.js';
 
 // Validation of lines read back from a session file. Fields written by a later exine
 // are not rejected: the schema ignores them and the reader keeps the parsed line as it is.
@@ -85,7 +86,7 @@ const taxonEvent = z.object({
 });
 const sitting = z.object({ ...stamp, type: z.literal('sitting'), sitting: z.number().int().positive() });
 const ruleChange = z.object({ ...stamp, type: z.literal('rules'), rules, spike });
-const rulesMet = z.object({ ...stamp, type: z.literal('rules-met'), sum: count, grains: count, met: z.array(z.string()) });
+const rulesMet = z.object({ ...stamp, type: z.literal('rules-met'), sum: count, grains: count, met: z.array(z.enum(RULE_NAMES)) });
 const rulesUnmet = z.object({ ...stamp, type: z.literal('rules-unmet'), sum: count, grains: count });
 const repair = z.object({
   ...stamp,

@@ -1,5 +1,5 @@
 import { hash } from 'node:crypto';
-import type { EventPayload, SessionEvent, Stamp } from '../session/events.js';
+import type { EventPayload, SessionEvent, Stamp } from '../model/events.js';
 
 // Every line ends with this field; the hash covers the line's own bytes before it,
 // and those bytes include "prev", the previous line's hash.

@@ -1,7 +1,7 @@
 import { isAscii } from 'node:buffer';
 import { checkKeymapValue } from '../keymap/parse-keymap.js';
 import type { Keymap } from '../keymap/keymap.js';
-import { FORMAT_VERSION } from '../session/events.js';
+import { FORMAT_VERSION } from '../model/events.js';
 import { describeIssue } from '../validation/describe-issue.js';
 import { KNOWN_EVENT_TYPES, parseEventObject, type ParsedEvent } from './event-schema.js';
 import { lineHashes } from './line-codec.js';

@@ -2,7 +2,7 @@ import * as fs from 'node:fs';
 import { dirname } from 'node:path';
 import { ExineError } from '../errors.js';
 import { fsyncDir } from '../io/fsync-dir.js';
-import type { EventPayload, SessionEvent } from '../session/events.js';
+import type { EventPayload, SessionEvent } from '../model/events.js';
 import { encodeLine } from './line-codec.js';
 import type { SessionLock } from './session-lock.js';
 

@@ -3,7 +3,7 @@ import { grainsToCoverage } from '../stats/coverage.js';
 import { grainsToRelativeError, markersAdded, relativeError, type Spike } from '../stats/concentration.js';
 import type { LevelStats } from '../stats/level-stats.js';
 import { Z95 } from '../stats/wilson.js';
-import type { RuleMode, RuleSet } from './rule-set.js';
+import type { RuleMode, RuleName, RuleSet } from './rule-set.js';
 
 /**
  * Coverage estimates mean little on a handful of grains: four grains of one type
@@ -12,8 +12,6 @@ import type { RuleMode, RuleSet } from './rule-set.js';
  * shows what it gives).
  */
 export const COVERAGE_FLOOR = 100;
-
-export type RuleName = 'target' | 'precision' | 'coverage' | 'plateau' | 'markers' | 'conc-error';
 
 export interface RuleStatus {
   readonly rule: RuleName;

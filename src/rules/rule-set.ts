@@ -1,4 +1,9 @@
 import { shortNumber } from '../text/numbers.js';
+
+/** The names of the rules, as the session file records which ones were met. */
+export const RULE_NAMES = ['target', 'precision', 'coverage', 'plateau', 'markers', 'conc-error'] as const;
+export type RuleName = (typeof RULE_NAMES)[number];
+
 /** How the rules of a set combine: the set is met when all of them are, or when any one is. */
 export type RuleMode = 'all' | 'any';
 

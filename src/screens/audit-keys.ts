@@ -1,8 +1,8 @@
 import type { TraverseRow } from '../audit/level-audit.js';
 import type { KeyPress } from '../input/key-press.js';
 import { editLine } from '../input/line-edit.js';
-import type { RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
-import type { LevelState } from '../session/level-state.js';
+import type { RestorePayload, SessionEvent, VoidPayload } from '../model/events.js';
+import type { LevelState } from '../model/level-state.js';
 
 export type Focus = 'traverses' | 'grains';
 

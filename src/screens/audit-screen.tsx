@@ -4,31 +4,14 @@ import { splitKeys } from '../input/key-press.js';
 import { auditKey, eventsOf, START_UI, type AuditUi, type AuditView } from './audit-keys.js';
 import { describeCell } from '../audit/evenness.js';
 import { describeCorrection, timelineBar, type LevelAudit, type TraverseRow } from '../audit/level-audit.js';
-import type { Verdict } from '../log/verify-log.js';
-import { describeEvent, formatDuration } from '../session/describe-event.js';
-import type { RestorePayload, SessionEvent, VoidPayload } from '../session/events.js';
-import type { LevelState } from '../session/level-state.js';
+import type { AuditRead, AuditSource } from '../audit/audit-source.js';
+import { describeEvent } from '../model/describe-event.js';
+import { formatDuration } from '../text/durations.js';
+import type { RestorePayload, SessionEvent, VoidPayload } from '../model/events.js';
 import { fit, plural, right } from '../text/cells.js';
 import { perMinute } from '../text/numbers.js';
 import { themeFor } from './theme.js';
 import { useTerminalSize } from './terminal-size.js';
-
-export interface AuditRead {
-  readonly state: LevelState;
-  readonly audit: LevelAudit;
-  readonly verdict: Verdict;
-  /** True when only the last line is incomplete: it is being written, or a crash cut it (exine count repairs it). */
-  readonly writing?: boolean;
-}
-
-/** Where the audit screen reads from and writes corrections to; the CLI reads the file, tests may do the same. */
-export interface AuditSource {
-  read(): AuditRead;
-  /** Has the file changed since the last read? Polled once a second. */
-  changed(): boolean;
-  correct(payload: VoidPayload | RestorePayload): void;
-}
-
 
 const time = (iso: string | null) => (iso ? iso.slice(11, 19) : '–');
 

@@ -1,4 +1,4 @@
-import type { LevelState, NoteRecord } from '../session/level-state.js';
+import type { LevelState, NoteRecord } from '../model/level-state.js';
 import { fit } from '../text/cells.js';
 
 export interface RareType {

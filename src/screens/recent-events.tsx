@@ -1,6 +1,6 @@
 import { Box, Text } from 'ink';
-import { describeEvent } from '../session/describe-event.js';
-import type { SessionEvent } from '../session/events.js';
+import { describeEvent } from '../model/describe-event.js';
+import type { SessionEvent } from '../model/events.js';
 import { fit } from '../text/cells.js';
 
 /** The last events, newest first; "★" marks the grain that brought a new type into the count. */

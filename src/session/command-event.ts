@@ -1,7 +1,7 @@
 import type { Command } from '../keymap/resolve-key.js';
-import type { EventPayload } from './events.js';
+import type { EventPayload } from '../model/events.js';
 import type { InputMode } from './input-mode.js';
-import type { LevelState } from './level-state.js';
+import type { LevelState } from '../model/level-state.js';
 
 export type Decision =
   | { readonly kind: 'record'; readonly payload: EventPayload }

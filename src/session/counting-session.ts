@@ -1,8 +1,8 @@
 import type { KeyPress } from '../input/key-press.js';
 import { AppendError, type SessionWriter } from '../log/session-writer.js';
-import type { EventPayload } from './events.js';
-import { applyEvents } from './fold.js';
-import type { LevelState } from './level-state.js';
+import type { EventPayload } from '../model/events.js';
+import { applyEvents } from '../model/fold.js';
+import type { LevelState } from '../model/level-state.js';
 import type { InputMode } from './input-mode.js';
 import { planBurst, type Message } from './plan-burst.js';
 

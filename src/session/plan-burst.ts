@@ -3,12 +3,12 @@ import type { KeyPress } from '../input/key-press.js';
 import { editLine } from '../input/line-edit.js';
 import { resolveKey } from '../keymap/resolve-key.js';
 import { decide } from './command-event.js';
-import type { EventPayload, SessionEvent } from './events.js';
-import { applyEvents } from './fold.js';
+import type { EventPayload, SessionEvent } from '../model/events.js';
+import { applyEvents } from '../model/fold.js';
 import { parseNewType, parseNote, type InputMode } from './input-mode.js';
-import type { LevelState } from './level-state.js';
+import type { LevelState } from '../model/level-state.js';
 import { nextFreeKey } from './free-key.js';
-import { rulesSignal } from './rules-signal.js';
+import { rulesSignal } from '../model/rules-signal.js';
 
 export type Tone = 'info' | 'warning' | 'error';
 export interface Message {

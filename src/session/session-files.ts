@@ -10,10 +10,10 @@ import { SessionLock } from '../log/session-lock.js';
 import { SessionWriter, type WriterOptions } from '../log/session-writer.js';
 import { describeRules, sameRules, type RuleSet } from '../rules/rule-set.js';
 import type { Spike } from '../stats/concentration.js';
-import { rulesSignal } from './rules-signal.js';
-import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent, type RestorePayload, type SessionEvent, type VoidPayload } from './events.js';
-import { applyEvent, applyEvents, foldEvents, startFold, type Folding } from './fold.js';
-import type { LevelState } from './level-state.js';
+import { rulesSignal } from '../model/rules-signal.js';
+import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent, type RestorePayload, type SessionEvent, type VoidPayload } from '../model/events.js';
+import { applyEvent, applyEvents, foldEvents, startFold, type Folding } from '../model/fold.js';
+import type { LevelState } from '../model/level-state.js';
 
 export interface OpenedLevel {
   readonly writer: SessionWriter;

@@ -1,5 +1,5 @@
 import { inPollenSum } from '../keymap/keymap.js';
-import type { LevelState } from '../session/level-state.js';
+import type { LevelCounts } from './level-counts.js';
 import { rarefy } from './rarefaction.js';
 
 export interface SaturationCurve {
@@ -18,7 +18,7 @@ export interface SaturationCurve {
  * rarefaction expectation of the counts as they stand (Birks & Line 1992 for
  * pollen). `points` sample the expectation, enough for the width of a plot.
  */
-export function saturationCurve(state: LevelState, points = 60): SaturationCurve {
+export function saturationCurve(state: LevelCounts, points = 60): SaturationCurve {
   const sumGrains: { seq: number; taxon: string }[] = [];
   for (let s = state.stack; s; s = s.below) if (inPollenSum(state.keymap, s.taxon)) sumGrains.push({ seq: s.seq, taxon: s.taxon });
   sumGrains.reverse();

@@ -1,4 +1,4 @@
-import type { LevelState } from '../session/level-state.js';
+import type { LevelCounts } from './level-counts.js';
 import { concentration, type Concentration } from './concentration.js';
 import { chao1, chaoJostCoverage, goodTuringCoverage, type RichnessEstimate } from './coverage.js';
 import { frequencies, type Frequencies } from './frequencies.js';
@@ -19,7 +19,7 @@ export interface LevelStats {
   readonly concentration: Concentration | null;
 }
 
-export function levelStats(state: LevelState): LevelStats {
+export function levelStats(state: LevelCounts): LevelStats {
   const table = levelTable(state);
   const freq = frequencies(table.rows.filter((r) => r.inSum).map((r) => r.count));
   const markers = table.groupTotals.markers;

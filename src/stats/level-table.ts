@@ -1,6 +1,6 @@
 import { GROUPS, groupRank, type Group } from '../keymap/groups.js';
 import type { Keymap } from '../keymap/keymap.js';
-import type { LevelState } from '../session/level-state.js';
+import type { LevelCounts } from './level-counts.js';
 import { wilsonInterval } from './wilson.js';
 
 export interface TaxonRow {
@@ -53,7 +53,7 @@ function layoutOf(keymap: Keymap) {
  * percentage of the sum; taxa of groups outside it (spores, aquatics …) a
  * percentage of the sum plus their own group, the usual convention.
  */
-export function levelTable(state: LevelState): LevelTable {
+export function levelTable(state: LevelCounts): LevelTable {
   const { keymap, counts } = state;
   const layout = layoutOf(keymap);
   let slots = layout.slots;

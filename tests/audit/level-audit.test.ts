@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { auditLevel, DEFAULT_DOUBLE_PRESS_MS, DEFAULT_GAP_MS, timelineBar } from '../../src/audit/level-audit.js';
-import type { EventPayload, OpenEvent, SessionEvent } from '../../src/session/events.js';
-import { foldEvents } from '../../src/session/fold.js';
+import type { EventPayload, OpenEvent, SessionEvent } from '../../src/model/events.js';
+import { foldEvents } from '../../src/model/fold.js';
 import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
 
 const OPTIONS = { doublePressMs: DEFAULT_DOUBLE_PRESS_MS, gapMs: DEFAULT_GAP_MS };

@@ -8,7 +8,7 @@ import { TALLY_CHILD, startChild } from '../helpers/child.js';
 import { grain, openPayload, timedSessionText } from '../helpers/levels.js';
 import { oneLine, runExine } from '../helpers/run-exine.js';
 import { tempDir } from '../helpers/temp-dir.js';
-import type { EventPayload } from '../../src/session/events.js';
+import type { EventPayload } from '../../src/model/events.js';
 
 const s = (n: number) => n * 1000;
 const OPTIONS = { doublePressMs: DEFAULT_DOUBLE_PRESS_MS, gapMs: DEFAULT_GAP_MS };

@@ -4,9 +4,9 @@ import { DEFAULT_ACTIONS, type Keymap } from '../../src/keymap/keymap.js';
 import { encodeLine } from '../../src/log/line-codec.js';
 import { DEFAULT_RULES, type RuleSet } from '../../src/rules/rule-set.js';
 import type { Spike } from '../../src/stats/concentration.js';
-import { FORMAT_VERSION, type EventPayload, type OpenEvent, type OpenPayload, type SessionEvent } from '../../src/session/events.js';
-import { foldEvents } from '../../src/session/fold.js';
-import type { LevelState } from '../../src/session/level-state.js';
+import { FORMAT_VERSION, type EventPayload, type OpenEvent, type OpenPayload, type SessionEvent } from '../../src/model/events.js';
+import { foldEvents } from '../../src/model/fold.js';
+import type { LevelState } from '../../src/model/level-state.js';
 import { createLevel } from '../../src/session/session-files.js';
 
 export const lowland = (): Keymap => loadKeymap('temperate-lowland').keymap;

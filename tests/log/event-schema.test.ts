@@ -36,6 +36,12 @@ describe('event validation', () => {
     expect(parseEventObject({ ...line, at: '2024-02-29T10:00:00.000Z' }).ok).toBe(true);
   });
 
+  it('accepts only the names of real rules in a rules-met line', () => {
+    const line = { seq: 9, at: '2026-02-20T10:00:00.000Z', prev: 'x', type: 'rules-met', sum: 500, grains: 530, met: ['target', 'coverage'] };
+    expect(parseEventObject(line).ok).toBe(true);
+    expect(parseEventObject({ ...line, met: ['target', 'taget'] }).ok).toBe(false);
+  });
+
   it('keeps unknown fields on the event it returns', () => {
     const line = { seq: 3, at: '2026-02-20T10:00:00.000Z', prev: 'x', type: 'undo', of: 2, reason: 'slipped' };
     const r = parseEventObject(line);

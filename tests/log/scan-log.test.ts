@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { scanLog } from '../../src/log/scan-log.js';
 import { verdictOf } from '../../src/log/verify-log.js';
 import { grain, openPayload, sessionText } from '../helpers/levels.js';
-import type { EventPayload } from '../../src/session/events.js';
+import type { EventPayload } from '../../src/model/events.js';
 
 const payloads: EventPayload[] = [
   openPayload(),

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { scanLog } from '../../src/log/scan-log.js';
-import type { EventPayload } from '../../src/session/events.js';
+import type { EventPayload } from '../../src/model/events.js';
 import { grain, openPayload, sessionText } from '../helpers/levels.js';
 
 const TAXA = ['Alnus', 'Betula', 'Corylus', 'Poaceae', 'Sphagnum', 'Lycopodium'];

@@ -5,7 +5,7 @@ import type { Spike } from '../../src/stats/concentration.js';
 import { levelStats } from '../../src/stats/level-stats.js';
 import { wilsonInterval, Z95 } from '../../src/stats/wilson.js';
 import { grain, grainsFor, keymapOf, openPayload, stateOf } from '../helpers/levels.js';
-import type { EventPayload } from '../../src/session/events.js';
+import type { EventPayload } from '../../src/model/events.js';
 
 const KEYMAP = keymapOf(30);
 const SPIKE: Spike = { tablets: 2, perTablet: 20000, perTabletSd: 800, volume: 1, mass: null, accumulationRate: null };

@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { splitKeys } from '../../src/input/key-press.js';
-import type { OpenEvent, SessionEvent } from '../../src/session/events.js';
-import { applyEvents, foldEvents } from '../../src/session/fold.js';
+import type { OpenEvent, SessionEvent } from '../../src/model/events.js';
+import { applyEvents, foldEvents } from '../../src/model/fold.js';
 import { FINISH_PROMPT, planBurst } from '../../src/session/plan-burst.js';
 import { TINY_KEYMAP, openPayload } from '../helpers/levels.js';
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Keymap } from '../../src/keymap/keymap.js';
-import type { EventPayload, OpenEvent, SessionEvent } from '../../src/session/events.js';
-import { foldEvents } from '../../src/session/fold.js';
+import type { EventPayload, OpenEvent, SessionEvent } from '../../src/model/events.js';
+import { foldEvents } from '../../src/model/fold.js';
 import { levelTable } from '../../src/stats/level-table.js';
 import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
 

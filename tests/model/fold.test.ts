@@ -1,11 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import type { EventPayload, OpenEvent, SessionEvent } from '../../src/session/events.js';
-import { applyEvent, foldEvents } from '../../src/session/fold.js';
+import type { EventPayload, OpenEvent, SessionEvent } from '../../src/model/events.js';
+import { applyEvent, foldEvents } from '../../src/model/fold.js';
 import { decide } from '../../src/session/command-event.js';
 import { resolveKey } from '../../src/keymap/resolve-key.js';
 import { splitKeys } from '../../src/input/key-press.js';
-import { RECENT_EVENTS, type LevelState } from '../../src/session/level-state.js';
+import { RECENT_EVENTS, type LevelState } from '../../src/model/level-state.js';
 import { NO_RULES, type RuleSet } from '../../src/rules/rule-set.js';
 import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
 

@@ -1,7 +1,6 @@
 import type { Group } from '../keymap/groups.js';
 import type { Keymap } from '../keymap/keymap.js';
-import type { RuleSet } from '../rules/rule-set.js';
-import type { RuleName } from '../rules/evaluate-rules.js';
+import type { RuleName, RuleSet } from '../rules/rule-set.js';
 import type { Spike } from '../stats/concentration.js';
 
 /**

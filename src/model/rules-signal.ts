@@ -1,17 +1,6 @@
-import { evaluateRules, type RuleReport } from '../rules/evaluate-rules.js';
-import { levelStats, type LevelStats } from '../stats/level-stats.js';
+import { levelReport } from '../rules/level-report.js';
 import type { RulesMetPayload, RulesUnmetPayload } from './events.js';
 import type { LevelState } from './level-state.js';
-
-export interface LevelReport {
-  readonly stats: LevelStats;
-  readonly rules: RuleReport;
-}
-
-export function levelReport(state: LevelState): LevelReport {
-  const stats = levelStats(state);
-  return { stats, rules: evaluateRules(state.rules, stats, state.spike) };
-}
 
 /**
  * The event to record when the rule set's verdict differs from what the file last
