@@ -1,4 +1,5 @@
 import { inPollenSum } from '../keymap/keymap.js';
+import { closedAfter, correctingAfter } from '../model/event-kinds.js';
 import type { SessionEvent } from '../model/events.js';
 import type { LevelState } from '../model/level-state.js';
 import { evennessAcrossTraverses, type Evenness } from './evenness.js';
@@ -133,7 +134,7 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
   const notes = new Map<number, number>();
   const sittings: SittingSpan[] = [];
   const flags: Flag[] = [];
-  let sitting: { sitting: number; start: string; end: string; countingMs: number; grains: number; pauses: Pause[]; lastType: string } | null = null;
+  let sitting: { sitting: number; start: string; end: string; countingMs: number; grains: number; pauses: Pause[]; closed: boolean } | null = null;
   let current = 1;
   let previous: SessionEvent | null = null;
   let previousGrain: (SessionEvent & { type: 'grain' }) | null = null;
@@ -144,8 +145,8 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
   };
   const closeSitting = () => {
     if (!sitting) return;
-    const { lastType, ...rest } = sitting;
-    sittings.push({ ...rest, spanMs: Date.parse(rest.end) - Date.parse(rest.start), closedCleanly: lastType === 'close' || lastType === 'finish' });
+    const { closed, ...rest } = sitting;
+    sittings.push({ ...rest, spanMs: Date.parse(rest.end) - Date.parse(rest.start), closedCleanly: closed });
   };
 
   // Corrections are made later, in the audit: they and the rule verdicts they cause are no part of the counting time.
@@ -157,8 +158,7 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
       previous = e;
       continue;
     }
-    if (e.type === 'void' || e.type === 'restore') correcting = true;
-    else if (e.type !== 'rules-met' && e.type !== 'rules-unmet') correcting = false;
+    correcting = correctingAfter(correcting, e.type);
     if (correcting) {
       if (e.type === 'void') {
         const t = e.grain !== null ? (grainTraverse.get(e.grain) ?? current) : (e.traverse as number);
@@ -174,7 +174,7 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
     }
     if (e.type === 'sitting') {
       closeSitting();
-      sitting = { sitting: e.sitting, start: e.at, end: e.at, countingMs: 0, grains: 0, pauses: [], lastType: 'sitting' };
+      sitting = { sitting: e.sitting, start: e.at, end: e.at, countingMs: 0, grains: 0, pauses: [], closed: false };
       previous = e;
       previousGrain = null;
       continue;
@@ -194,7 +194,7 @@ export function auditLevel(events: readonly SessionEvent[], state: LevelState, o
     }
     if (sitting) {
       sitting.end = e.at;
-      sitting.lastType = e.type;
+      sitting.closed = closedAfter(sitting.closed, e.type);
     }
     switch (e.type) {
       case 'grain': {

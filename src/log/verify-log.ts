@@ -1,3 +1,4 @@
+import { closedAfter } from '../model/event-kinds.js';
 import { plural } from '../text/cells.js';
 import type { LogScan } from './scan-log.js';
 
@@ -23,10 +24,7 @@ export function verdictOf(name: string, scan: LogScan): Verdict {
     const kept = scan.lines;
     return { intact: false, summary: `${name}: ${damage.message} (${plural(kept, 'line')} before it ${kept === 1 ? 'is' : 'are'} intact)`, warnings };
   }
-  // Corrections made later in the audit (and the rule verdicts they bring) come after the last sitting's close.
-  const later = new Set(['void', 'restore', 'rules-met', 'rules-unmet']);
-  const last = scan.events.findLast((e) => !later.has(e.type));
-  const closed = last?.type === 'close' || last?.type === 'finish';
+  const closed = scan.events.reduce((c, e) => closedAfter(c, e.type), false);
   return {
     intact: true,
     summary: `${name}: intact, ${scan.lines} lines, chain verified, last hash ${scan.lastHash}${closed ? '' : '; not closed cleanly (the last sitting was stopped or is still open)'}`,

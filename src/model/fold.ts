@@ -1,5 +1,6 @@
 import { inPollenSum, type Keymap } from '../keymap/keymap.js';
 import { normalRules } from '../rules/rule-set.js';
+import { closedAfter } from './event-kinds.js';
 import type { OpenEvent, SessionEvent } from './events.js';
 import { RECENT_EVENTS, type CountedGrain, type GrainStack, type LevelState } from './level-state.js';
 
@@ -152,13 +153,7 @@ function step(d: Draft, event: SessionEvent): void {
   d.lastAt = event.at;
   d.recent.push(event);
   if (d.recent.length > RECENT_EVENTS) d.recent.shift();
-  // A correction made in the audit is not a sitting: whether the last sitting closed stays as it was.
-  if (event.type === 'void' || event.type === 'restore') {
-    if (event.type === 'void') voidGrains(d, event);
-    else restoreGrains(d, event);
-    return;
-  }
-  d.closed = false;
+  d.closed = closedAfter(d.closed, event.type);
   switch (event.type) {
     case 'open':
       // Only line 1 opens a level; the log reader refuses any other.
@@ -238,11 +233,15 @@ function step(d: Draft, event: SessionEvent): void {
     case 'repair':
       d.repairs++;
       return;
+    case 'void':
+      voidGrains(d, event);
+      return;
+    case 'restore':
+      restoreGrains(d, event);
+      return;
     case 'close':
-      d.closed = true;
       return;
     case 'finish':
-      d.closed = true;
       d.finishedAt = event.at;
       return;
     default:
