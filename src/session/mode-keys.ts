@@ -1,0 +1,108 @@
+import { GROUPS } from '../keymap/groups.js';
+import type { KeyPress } from '../input/key-press.js';
+import { editLine } from '../input/line-edit.js';
+import type { Burst, Outcome } from './burst.js';
+import { nextFreeKey } from './free-key.js';
+import { parseNewType, parseNote, type InputMode } from './input-mode.js';
+
+const NOT_FINISHED = 'not finished: counting goes on (that key counted nothing)';
+
+type ModeOf<K extends InputMode['kind']> = Extract<InputMode, { kind: K }>;
+
+/** The answer to "finish this level?": y finishes and quits, any other key goes on counting. */
+function finishKey(b: Burst, key: KeyPress): Outcome {
+  b.mode = null;
+  if (key.kind === 'char' && (key.char === 'y' || key.char === 'Y')) {
+    b.stage({ type: 'finish' });
+    return 'quit';
+  }
+  if (key.kind === 'interrupt') return 'quit';
+  b.say(NOT_FINISHED);
+  return 'go-on';
+}
+
+/** Any key closes the help and counts nothing; Ctrl-C still quits. */
+function helpKey(b: Burst, key: KeyPress): Outcome {
+  b.mode = null;
+  if (key.kind === 'interrupt') return 'quit';
+  b.say('help closed: that key counted nothing');
+  return 'go-on';
+}
+
+function noteKey(b: Burst, mode: ModeOf<'note'>, key: KeyPress): Outcome {
+  const next = editLine(mode.text, key);
+  if (next === 'quit') return 'quit';
+  if (next === 'cancel') {
+    b.mode = null;
+    b.say('note cancelled: nothing recorded');
+    return 'go-on';
+  }
+  if (next !== 'enter') {
+    b.mode = { ...mode, text: next };
+    return 'go-on';
+  }
+  b.mode = null;
+  const { text, stage } = parseNote(mode.text);
+  if (!text && !stage) {
+    b.say('empty note: nothing recorded');
+    return 'go-on';
+  }
+  b.stage({ type: 'note', text, grain: mode.grain, stage });
+  b.say(`note recorded${mode.grain === null ? ' for the level' : ` on #${mode.grain} ${mode.taxon ?? ''}`}`.trimEnd());
+  return 'go-on';
+}
+
+/** "name, group" then Enter: a type on a key already counts one grain there; a new one gets the next free key and its first grain. */
+function newTypeKey(b: Burst, mode: ModeOf<'new-type'>, key: KeyPress): Outcome {
+  const next = editLine(mode.text, key);
+  if (next === 'quit') return 'quit';
+  if (next === 'cancel') {
+    b.mode = null;
+    b.say('new type cancelled: nothing counted');
+    return 'go-on';
+  }
+  if (next !== 'enter') {
+    b.mode = { ...mode, text: next };
+    return 'go-on';
+  }
+  const parsed = parseNewType(mode.text, GROUPS);
+  if (!parsed.ok) {
+    b.say(parsed.message, 'warning');
+    return 'go-on';
+  }
+  const state = b.state();
+  const known = Object.entries(state.keymap.keys).find(([, binding]) => binding.taxon === parsed.taxon);
+  b.mode = null;
+  if (known) {
+    b.stage({ type: 'grain', taxon: parsed.taxon, traverse: state.traverse, key: known[0] });
+    b.judge();
+    b.say(`${parsed.taxon} is on key ${known[0]} already: one grain counted`);
+    return 'go-on';
+  }
+  const freeKey = nextFreeKey(state.keymap);
+  if (freeKey === null) {
+    b.say('no free key left for a new type: add it to a keymap of your own', 'warning');
+    return 'go-on';
+  }
+  b.stage({ type: 'taxon', taxon: parsed.taxon, group: parsed.group, key: freeKey });
+  b.stage({ type: 'grain', taxon: parsed.taxon, traverse: state.traverse, key: freeKey });
+  b.judge();
+  b.say(`new type ${parsed.taxon} (${parsed.group}) on key ${freeKey}: one grain counted`);
+  return 'go-on';
+}
+
+/** A key while a question, the help or a typed line is open: one reducer per mode. */
+export function modeKey(b: Burst, mode: InputMode, key: KeyPress): Outcome {
+  switch (mode.kind) {
+    case 'confirm-finish':
+      return finishKey(b, key);
+    case 'help':
+      return helpKey(b, key);
+    case 'note':
+      return noteKey(b, mode, key);
+    case 'new-type':
+      return newTypeKey(b, mode, key);
+    default:
+      return mode satisfies never;
+  }
+}
