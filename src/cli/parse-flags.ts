@@ -23,6 +23,10 @@ export function positiveInteger(command: string, flag: string, value: string | u
   if (!/^\d+$/.test(value) || Number(value) <= 0) {
     throw new UsageError(`exine ${command}: --${flag} must be a whole number above 0, not "${value}"${hint}`);
   }
+  // The session file holds whole numbers exactly only up to 2^53 - 1; a larger one would be written and then refused.
+  if (!Number.isSafeInteger(Number(value))) {
+    throw new UsageError(`exine ${command}: --${flag} must be at most ${Number.MAX_SAFE_INTEGER}, not "${value}"${hint}`);
+  }
   return Number(value);
 }
 

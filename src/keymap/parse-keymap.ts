@@ -18,7 +18,8 @@ const keymapShape = z.object({
     z.string(),
     z.object({ taxon: z.string().trim().min(1), group: z.string() }).loose(),
   ),
-  actions: z.record(z.string(), z.string()).optional(),
+  // null: the action has no key (a keymap copied into a session file says so for an action whose default key is a taxon's).
+  actions: z.record(z.string(), z.string().nullable()).optional(),
   sum: z.array(z.string()).optional(),
 }).loose();
 
@@ -89,6 +90,10 @@ export function checkKeymapValue(value: unknown, source: string): KeymapResult {
   for (const [name, key] of Object.entries(given)) {
     if (!(ACTION_NAMES as readonly string[]).includes(name)) {
       return fail(`unknown action "${name}" (expected one of ${ACTION_NAMES.join(', ')})`);
+    }
+    if (key === null) {
+      actions[name as ActionName] = null;
+      continue;
     }
     if (!isActionKey(key)) {
       return fail(

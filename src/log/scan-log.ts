@@ -1,24 +1,10 @@
 import { isAscii } from 'node:buffer';
-import { checkKeymapValue } from '../keymap/parse-keymap.js';
 import type { Keymap } from '../keymap/keymap.js';
-import { FORMAT_VERSION } from '../model/events.js';
-import { describeIssue } from '../validation/describe-issue.js';
-import { KNOWN_EVENT_TYPES, parseEventObject, type ParsedEvent } from './event-schema.js';
+import { checkEventContent, References, type Problem } from './check-event.js';
+import type { ParsedEvent } from './event-schema.js';
 import { lineHashes } from './line-codec.js';
 
-export type Problem =
-  | 'torn'
-  | 'nul-padding'
-  | 'no-hash'
-  | 'hash-mismatch'
-  | 'not-json'
-  | 'seq'
-  | 'chain'
-  | 'bad-event'
-  | 'unknown-type'
-  | 'not-open'
-  | 'future-format'
-  | 'empty';
+export type { Problem } from './check-event.js';
 
 export interface Damage {
   /** 1-based line number where the damage starts. */
@@ -72,25 +58,9 @@ function checkLine(line: string, lineNo: number, prevHash: string): LineCheck {
   if (record.prev !== prevHash) {
     return bad('chain', 'does not chain to the line before it: lines were reordered, removed or taken from another session');
   }
-  if (lineNo === 1) {
-    if (record.type !== 'open') return bad('not-open', `is of type ${JSON.stringify(record.type)}; a session file starts with an "open" line`);
-    if (typeof record.format === 'number' && record.format > FORMAT_VERSION) {
-      return bad('future-format', `is session format ${record.format}, written by a newer exine (this one reads format ${FORMAT_VERSION}); update exine to open it`);
-    }
-  } else if (record.type === 'open') {
-    return bad('bad-event', 'is a second "open" line; only line 1 opens a level');
-  }
-  if (typeof record.type === 'string' && !KNOWN_EVENT_TYPES.has(record.type)) {
-    return bad('unknown-type', `has unknown event type ${JSON.stringify(record.type)}; it may come from a newer exine`);
-  }
-  const parsed = parseEventObject(value);
-  if (!parsed.ok) return bad('bad-event', `is not a valid event: ${describeIssue(parsed.issue)}`);
-  if (parsed.event.type === 'open') {
-    const keymap = checkKeymapValue(parsed.event.keymap, 'recorded in line 1');
-    if (!keymap.ok) return bad('bad-event', `holds an invalid keymap: ${keymap.message}`);
-    return { ok: true, event: parsed.event, hash: hashes.actual, keymap: keymap.keymap };
-  }
-  return { ok: true, event: parsed.event, hash: hashes.actual };
+  const content = checkEventContent(record, lineNo);
+  if (!content.ok) return bad(content.problem, content.message);
+  return { ok: true, event: content.event, hash: hashes.actual, ...(content.keymap ? { keymap: content.keymap } : {}) };
 }
 
 const PHYSICAL: ReadonlySet<Problem> = new Set(['no-hash', 'hash-mismatch', 'not-json']);
@@ -109,6 +79,7 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
   const events: ParsedEvent[] = [];
   let keymap: Keymap | null = null;
   let lastHash = '';
+  const refs = new References();
   // Work on the decoded text (one decode, as a plain reader would); count bytes beside it
   // for the offsets a repair cuts at. In pure ASCII a character is a byte.
   const text = buf.toString('utf8');
@@ -148,6 +119,8 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
       const repairable = lineNo > 1 && allNul(text, nl + 1) && PHYSICAL.has(check.problem);
       return repairable ? result(damage, null) : result(null, damage);
     }
+    const dangling = refs.check(check.event);
+    if (dangling) return result(null, { line: lineNo, offset: bytePos, problem: 'bad-reference', message: `line ${lineNo} ${dangling}` });
     if (check.keymap) keymap = check.keymap;
     valid++;
     if (onEvent) onEvent(check.event, keymap as Keymap);

@@ -3,6 +3,7 @@ import { dirname } from 'node:path';
 import { ExineError } from '../errors.js';
 import { fsyncDir } from '../io/fsync-dir.js';
 import type { EventPayload, SessionEvent } from '../model/events.js';
+import { checkEventContent } from './check-event.js';
 import { encodeLine } from './line-codec.js';
 import type { SessionLock } from './session-lock.js';
 
@@ -111,6 +112,11 @@ export class SessionWriter {
     for (const payload of payloads) {
       const stamp = { seq: this.seq + events.length + 1, at };
       const encoded = encodeLine(payload, stamp, hash);
+      // The reader's own check, before anything is written: a line exine writes is a line exine can read.
+      const check = checkEventContent(JSON.parse(encoded.line) as Record<string, unknown>, stamp.seq);
+      if (!check.ok) {
+        throw new AppendError(`not recorded: the ${payload.type} event would not read back (line ${stamp.seq} ${check.message}); nothing was written`, false);
+      }
       hash = encoded.hash;
       lines.push(`${encoded.line}\n`);
       events.push({ ...payload, ...stamp } as SessionEvent);

@@ -1,0 +1,90 @@
+import { checkKeymapValue } from '../keymap/parse-keymap.js';
+import type { Keymap } from '../keymap/keymap.js';
+import { FORMAT_VERSION } from '../model/events.js';
+import { describeIssue } from '../validation/describe-issue.js';
+import { KNOWN_EVENT_TYPES, parseEventObject, type ParsedEvent } from './event-schema.js';
+
+/** What is wrong with a line, from physical damage to an event that points at nothing. */
+export type Problem =
+  | 'torn'
+  | 'nul-padding'
+  | 'no-hash'
+  | 'hash-mismatch'
+  | 'not-json'
+  | 'seq'
+  | 'chain'
+  | 'bad-event'
+  | 'unknown-type'
+  | 'not-open'
+  | 'future-format'
+  | 'bad-reference'
+  | 'empty';
+
+export type ContentCheck =
+  | { readonly ok: true; readonly event: ParsedEvent; readonly keymap?: Keymap }
+  | { readonly ok: false; readonly problem: Problem; readonly message: string };
+
+/**
+ * What a line holds, judged as the reader judges it: the kind of event, its fields,
+ * and the keymap of line 1. The writer runs the same check before it appends, so a
+ * line it writes is a line it can read.
+ */
+export function checkEventContent(record: Record<string, unknown>, lineNo: number): ContentCheck {
+  const bad = (problem: Problem, message: string): ContentCheck => ({ ok: false, problem, message });
+  if (lineNo === 1) {
+    if (record.type !== 'open') return bad('not-open', `is of type ${JSON.stringify(record.type)}; a session file starts with an "open" line`);
+    if (typeof record.format === 'number' && record.format > FORMAT_VERSION) {
+      return bad('future-format', `is session format ${record.format}, written by a newer exine (this one reads format ${FORMAT_VERSION}); update exine to open it`);
+    }
+  } else if (record.type === 'open') {
+    return bad('bad-event', 'is a second "open" line; only line 1 opens a level');
+  }
+  if (typeof record.type === 'string' && !KNOWN_EVENT_TYPES.has(record.type)) {
+    return bad('unknown-type', `has unknown event type ${JSON.stringify(record.type)}; it may come from a newer exine`);
+  }
+  const parsed = parseEventObject(record);
+  if (!parsed.ok) return bad('bad-event', `is not a valid event: ${describeIssue(parsed.issue)}`);
+  if (parsed.event.type === 'open') {
+    const keymap = checkKeymapValue(parsed.event.keymap, 'recorded in line 1');
+    if (!keymap.ok) return bad('bad-event', `holds an invalid keymap: ${keymap.message}`);
+    return { ok: true, event: parsed.event, keymap: keymap.keymap };
+  }
+  return { ok: true, event: parsed.event };
+}
+
+/**
+ * The seqs that later lines may point at. exine only ever writes an undo of a
+ * grain, a void of a grain, a restore of a void and a note on a grain that came
+ * before; a line pointing anywhere else was written by hand.
+ */
+export class References {
+  private readonly grains = new Set<number>();
+  private readonly voids = new Set<number>();
+
+  /** What is wrong with the event's reference, or null; then remembers the event. */
+  check(event: ParsedEvent): string | null {
+    const points = (what: string, seq: number, kind: string) => `is ${what} #${seq}, which is not an earlier ${kind} line`;
+    let wrong: string | null = null;
+    switch (event.type) {
+      case 'grain':
+        this.grains.add(event.seq);
+        break;
+      case 'undo':
+        if (!this.grains.has(event.of)) wrong = points('an undo of', event.of, 'grain');
+        break;
+      case 'void':
+        if (event.grain !== null && !this.grains.has(event.grain)) wrong = points('a void of', event.grain, 'grain');
+        this.voids.add(event.seq);
+        break;
+      case 'restore':
+        if (!this.voids.has(event.of)) wrong = points('a restore of', event.of, 'void');
+        break;
+      case 'note':
+        if (event.grain !== null && !this.grains.has(event.grain)) wrong = points('a note on', event.grain, 'grain');
+        break;
+      default:
+        break;
+    }
+    return wrong;
+  }
+}
