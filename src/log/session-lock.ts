@@ -1,48 +1,107 @@
-import { randomBytes } from 'node:crypto';
-import { closeSync, fsyncSync, linkSync, openSync, readFileSync, renameSync, statSync, unlinkSync, writeSync } from 'node:fs';
+import { unlinkSync } from 'node:fs';
 import { hostname } from 'node:os';
 import { basename } from 'node:path';
 import { ExineError } from '../errors.js';
 import { isProcessRunning, processStartToken } from '../io/process-info.js';
+import { createLockFile, newLockInfo, readLock, type LockInfo, type LockRead } from './lock-file.js';
 
-export interface LockInfo {
-  readonly pid: number;
-  readonly host: string;
-  /** Process start token of the holder (see process-info.ts), to tell a reused pid from the holder. */
-  readonly started: string | null;
-  readonly token: string;
-  readonly at: string;
-}
+export type { LockInfo };
 
-/** A lock file created while its writer had not yet filled it is this old before it counts as abandoned. */
+/** An empty lock (left by an exine older than this one, stopped while starting) is this old before it counts as abandoned. */
 export const EMPTY_LOCK_GRACE_MS = 5_000;
+/** How long to wait for another process that is taking over the same stale lock. */
+const TAKEOVER_WAIT_MS = 3_000;
 
 export function lockPathOf(sessionPath: string): string {
   return `${sessionPath}.lock`;
 }
 
-function readLock(path: string): LockInfo | 'unreadable' | 'gone' {
-  try {
-    const info = JSON.parse(readFileSync(path, 'utf8')) as LockInfo;
-    return typeof info.pid === 'number' && typeof info.token === 'string' ? info : 'unreadable';
-  } catch (error) {
-    return (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'gone' : 'unreadable';
+type Found = Exclude<LockRead, { kind: 'gone' }>;
+type Judgement = { readonly stale: true; readonly who: string } | { readonly stale: false; readonly holder: string };
+
+/** Whether a lock's holder is gone. A lock from another host cannot be checked from here: it is never stale. */
+function judge(found: Found, name: string): Judgement {
+  const here = hostname();
+  if (found.kind === 'lock') {
+    const { pid, host, started, at } = found.info;
+    if (host !== here) return { stale: false, holder: `exine process ${pid} on ${host} (since ${at})` };
+    if (!isProcessRunning(pid)) return { stale: true, who: `left by process ${pid}, no longer running` };
+    const now = processStartToken(pid);
+    if (started !== null && now !== null && now !== started) return { stale: true, who: `left by process ${pid}, no longer running (its number is now another program's)` };
+    return { stale: false, holder: `exine process ${pid} on ${host} (since ${at})` };
+  }
+  if (found.pid !== null && (found.host === null || found.host === here)) {
+    if (!isProcessRunning(found.pid)) return { stale: true, who: `left by process ${found.pid}, no longer running` };
+    return { stale: false, holder: `process ${found.pid}, whose lock file ${name} is incomplete` };
+  }
+  if (found.pid !== null) return { stale: false, holder: `process ${found.pid} on ${found.host}, whose lock file ${name} is incomplete` };
+  if (found.empty && Date.now() - found.mtimeMs > EMPTY_LOCK_GRACE_MS) return { stale: true, who: 'left empty by a writer that stopped while starting' };
+  if (found.empty) return { stale: false, holder: 'another exine that is starting up' };
+  return { stale: false, holder: `a process unknown: the lock file ${name} cannot be read (exine did not write it); if no exine has this level open, delete ${name} by hand and try again` };
+}
+
+function sameLock(a: LockRead, b: Found): boolean {
+  if (a.kind === 'gone' || a.ino !== b.ino || a.kind !== b.kind) return false;
+  return a.kind === 'unreadable' || (b.kind === 'lock' && a.info.token === b.info.token);
+}
+
+const pause = (ms: number) => Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, ms);
+
+function releaseIfOurs(path: string, info: LockInfo): void {
+  const current = readLock(path);
+  if (current.kind === 'lock' && current.info.token === info.token) {
+    try {
+      unlinkSync(path);
+    } catch {
+      // already gone
+    }
   }
 }
 
-function isStale(path: string, info: LockInfo | 'unreadable'): boolean {
-  if (info === 'unreadable') {
-    try {
-      return Date.now() - statSync(path).mtimeMs > EMPTY_LOCK_GRACE_MS;
-    } catch {
-      return true;
+/**
+ * Remove a stale lock, one taker at a time. Only a process holding `PATH.break`
+ * removes a lock, and only the very lock it judged stale (same file, same
+ * token), so a lock created in the meantime by a live writer is never touched.
+ * The break file is held for microseconds; a break file left by a killed taker is
+ * itself removed when its holder is dead.
+ */
+function removeStale(path: string, judged: Found): void {
+  const breakPath = `${path}.break`;
+  const deadline = Date.now() + TAKEOVER_WAIT_MS;
+  for (;;) {
+    const info = newLockInfo();
+    if (createLockFile(breakPath, info) === 'created') {
+      try {
+        if (sameLock(readLock(path), judged)) unlinkSync(path);
+      } finally {
+        releaseIfOurs(breakPath, info);
+      }
+      return;
+    }
+    const other = readLock(breakPath);
+    if (other.kind !== 'gone') {
+      const j = judge(other, basename(breakPath));
+      // Checked again just before removal: a live taker's break file is never removed.
+      if (j.stale && sameLock(readLock(breakPath), other)) {
+        try {
+          unlinkSync(breakPath);
+        } catch {
+          // another taker removed it
+        }
+        continue;
+      }
+      if (Date.now() > deadline) throw new ExineError(`cannot lock: another process has been taking over the same stale lock for ${TAKEOVER_WAIT_MS / 1000} s (${basename(breakPath)}); try again`);
+      pause(2);
     }
   }
-  // A lock from another machine (a shared drive) cannot be checked from here: never take it over.
-  if (info.host !== hostname()) return false;
-  if (!isProcessRunning(info.pid)) return true;
-  const started = processStartToken(info.pid);
-  return info.started !== null && started !== null && started !== info.started;
+}
+
+function describeFailure(error: unknown): string {
+  const code = (error as NodeJS.ErrnoException).code;
+  if (code === 'ENOSPC') return 'the disk is full';
+  if (code === 'EACCES' || code === 'EPERM') return 'no permission to write in its folder';
+  if (code === 'EROFS') return 'the folder is read-only';
+  return (error as Error).message;
 }
 
 /** An exclusive claim on one session file for this process's lifetime. */
@@ -59,62 +118,26 @@ export class SessionLock {
   static acquire(sessionPath: string): SessionLock {
     const path = lockPathOf(sessionPath);
     let tookOverFrom: string | null = null;
-    for (let attempt = 0; attempt < 5; attempt++) {
-      const info: LockInfo = {
-        pid: process.pid,
-        host: hostname(),
-        started: processStartToken(process.pid),
-        token: randomBytes(12).toString('hex'),
-        at: new Date().toISOString(),
-      };
+    for (let attempt = 0; attempt < 8; attempt++) {
+      const info = newLockInfo();
+      let made: 'created' | 'exists';
       try {
-        const fd = openSync(path, 'wx');
-        try {
-          writeSync(fd, `${JSON.stringify(info)}\n`);
-          fsyncSync(fd);
-        } finally {
-          closeSync(fd);
-        }
-        return new SessionLock(path, info, tookOverFrom);
+        made = createLockFile(path, info);
       } catch (error) {
-        if ((error as NodeJS.ErrnoException).code !== 'EEXIST') {
-          throw new ExineError(`cannot lock ${sessionPath}: ${(error as Error).message}`);
-        }
+        throw new ExineError(`cannot lock ${sessionPath}: ${describeFailure(error)}; nothing was changed`);
       }
-      const held = readLock(path);
-      if (held === 'gone') continue;
-      if (!isStale(path, held)) {
-        const who = held === 'unreadable' ? 'another exine that is starting up' : `exine process ${held.pid} on ${held.host} (since ${held.at})`;
-        throw new ExineError(
-          `${sessionPath} is already open in ${who}; close it there first (lock file: ${basename(path)})`,
-        );
-      }
-      // Move the stale lock aside (never delete evidence), then check that what moved is what was judged stale.
-      const aside = `${path}.stale-${randomBytes(6).toString('hex')}`;
+      if (made === 'created') return new SessionLock(path, info, tookOverFrom);
+      const found = readLock(path);
+      if (found.kind === 'gone') continue;
+      const j = judge(found, basename(path));
+      if (!j.stale) throw new ExineError(`${sessionPath} is already open in ${j.holder}; close it there first (lock file: ${basename(path)})`);
       try {
-        renameSync(path, aside);
-      } catch {
-        continue;
+        removeStale(path, found);
+      } catch (error) {
+        if (error instanceof ExineError) throw error;
+        throw new ExineError(`cannot lock ${sessionPath}: ${describeFailure(error)}; nothing was changed`);
       }
-      const moved = readLock(aside);
-      const sameLock = held === 'unreadable' ? moved === 'unreadable' : moved !== 'unreadable' && moved !== 'gone' && moved.token === held.token;
-      if (!sameLock) {
-        // Another process replaced it in between: put its live lock back unless a third one already did.
-        try {
-          linkSync(aside, path);
-          unlinkSync(aside);
-        } catch {
-          // leave it aside; the next attempt re-reads the lock in place
-        }
-        continue;
-      }
-      // The rename was the claim; the stale lock itself is of no further use.
-      try {
-        unlinkSync(aside);
-      } catch {
-        // left aside; harmless
-      }
-      tookOverFrom = moved === 'unreadable' || moved === 'gone' ? 'left empty by a writer that stopped while starting' : `left by process ${moved.pid}, no longer running`;
+      tookOverFrom = j.who;
     }
     throw new ExineError(`cannot lock ${sessionPath}: the lock file keeps changing; is another exine starting on it?`);
   }
@@ -122,13 +145,6 @@ export class SessionLock {
   release(): void {
     if (this.released) return;
     this.released = true;
-    const current = readLock(this.path);
-    if (current !== 'gone' && current !== 'unreadable' && current.token === this.info.token) {
-      try {
-        unlinkSync(this.path);
-      } catch {
-        // already gone
-      }
-    }
+    releaseIfOurs(this.path, this.info);
   }
 }
