@@ -18,8 +18,8 @@ const stdlibPrefix = () => (prefix ??= require('@stdlib/math-base-special-gammai
  * series of Q for large x. There @stdlib 0.3.1 starts the terms from a where Boost
  * starts from a − 1, and so returns (a/x)·Q(a + 1, x) for Q(a, x): a Poisson CDF
  * near its mean is off by about one count's probability (P(X ≤ 1312 | λ = 1312)
- * comes out 0.51874 for 0.50734). Only that branch is replaced here; the fix
- * offered upstream is stdlib-gammainc-large-x.patch beside this file.
+ * comes out 0.51874 for 0.50734). Only that branch is replaced here; the fix for
+ * upstream (not yet sent) is stdlib-gammainc-large-x.patch beside this file.
  */
 const takesLargeXBranch = (a: number, x: number) => x > 1000 && (a < x || Math.abs(a - 50) / x < 1);
 
