@@ -43,19 +43,26 @@ export type Chao1Variant = 'iNEXT (Chao et al. 2014)';
 export interface RichnessEstimate {
   readonly estimate: number;
   readonly se: number;
-  /** 95% interval from the log-normal transform of the unseen types (Chao 1987). */
+  /**
+   * 95% interval: from the log-normal transform of the unseen types (Chao 1987), or,
+   * when none is estimated unseen, iNEXT's interval about S/(1 − P) (see nothingUnseen).
+   */
   readonly low: number;
   readonly high: number;
   readonly variant: Chao1Variant;
 }
+
+const VARIANT: Chao1Variant = 'iNEXT (Chao et al. 2014)';
 
 /**
  * Chao1 richness, in the form iNEXT uses (Chao et al. 2014): S + ((n−1)/n)·f1²/(2 f2),
  * or S + ((n−1)/n)·f1(f1−1)/2 when no type is seen twice; with its variance and the
  * log-normal interval, whose lower limit never falls below the types observed.
  */
-export function chao1({ n, s, f1, f2 }: Frequencies): RichnessEstimate | null {
+export function chao1(freq: Frequencies): RichnessEstimate | null {
+  const { n, s, f1, f2 } = freq;
   if (n === 0) return null;
+  if (f1 === 0 || (f1 === 1 && f2 === 0)) return nothingUnseen(freq);
   const a = (n - 1) / n;
   let unseen: number;
   let variance: number;
@@ -65,12 +72,31 @@ export function chao1({ n, s, f1, f2 }: Frequencies): RichnessEstimate | null {
     variance = f2 * ((a * r ** 2) / 2 + a ** 2 * r ** 3 + (a ** 2 * r ** 4) / 4);
   } else {
     unseen = (a * f1 * (f1 - 1)) / 2;
-    const est = s + unseen;
-    variance = unseen > 0 ? (a * f1 * (f1 - 1)) / 2 + (a ** 2 * f1 * (2 * f1 - 1) ** 2) / 4 - (a ** 2 * f1 ** 4) / (4 * est) : 0;
+    variance = (a * f1 * (f1 - 1)) / 2 + (a ** 2 * f1 * (2 * f1 - 1) ** 2) / 4 - (a ** 2 * f1 ** 4) / (4 * (s + unseen));
   }
   const estimate = s + unseen;
   variance = Math.max(0, variance);
-  if (unseen <= 0 || variance === 0) return { estimate, se: Math.sqrt(variance), low: estimate, high: estimate, variant: 'iNEXT (Chao et al. 2014)' };
   const k = Math.exp(Z95 * Math.sqrt(Math.log(1 + variance / unseen ** 2)));
-  return { estimate, se: Math.sqrt(variance), low: s + unseen / k, high: s + unseen * k, variant: 'iNEXT (Chao et al. 2014)' };
+  return { estimate, se: Math.sqrt(variance), low: s + unseen / k, high: s + unseen * k, variant: VARIANT };
+}
+
+/**
+ * f1 = 0, or one singleton and no doubleton: the estimate is S, but not without error.
+ * iNEXT's ChaoRichness (R/EstIndex.R) then takes, over the observed counts X_i,
+ * var = Σ e^(−X_i)(1 − e^(−X_i)) − (Σ X_i e^(−X_i))²/n, and the interval
+ * S/(1 − P) ± z·se/(1 − P) with P = Σ e^(−X_i)/S, its lower limit not below S.
+ */
+function nothingUnseen({ n, s, counts }: Frequencies): RichnessEstimate {
+  let spread = 0;
+  let tilt = 0;
+  let missed = 0;
+  for (const x of counts) {
+    const e = Math.exp(-x);
+    spread += e * (1 - e);
+    tilt += x * e;
+    missed += e;
+  }
+  const se = Math.sqrt(Math.max(0, spread - tilt ** 2 / n));
+  const stretch = 1 / (1 - missed / s);
+  return { estimate: s, se, low: Math.max(s, s * stretch - Z95 * se * stretch), high: s * stretch + Z95 * se * stretch, variant: VARIANT };
 }

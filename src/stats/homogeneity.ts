@@ -1,4 +1,4 @@
-import { chisquareCdf } from './special-functions.js';
+import { chisquareUpperTail } from './special-functions.js';
 
 export interface ChiSquareResult {
   readonly statistic: number;
@@ -25,7 +25,7 @@ export function chiSquareTest(table: readonly (readonly number[])[]): ChiSquareR
     }),
   );
   const df = (rows.length - 1) * (cols.length - 1);
-  return { statistic, df, p: 1 - chisquareCdf(statistic, df), expected, residuals };
+  return { statistic, df, p: chisquareUpperTail(statistic, df), expected, residuals };
 }
 
 /** Cochran (1954): no more than 20% of expected counts below 5, and none below 1. */

@@ -35,6 +35,10 @@ export function rarefy(counts: readonly number[], n: number, withVariance = true
   const present = counts.filter((c) => c > 0);
   const total = present.reduce((a, c) => a + c, 0);
   if (!Number.isInteger(n) || n < 1 || n > total) return null;
+  // One grain is always one type, and all N grains are always all S: no spread there,
+  // whatever the rounding of the log-gamma ratios (which leaves an s.e. near 1e-5 at n = 1).
+  if (n === 1) return { n, expected: 1, variance: 0, se: 0 };
+  if (n === total) return { n, expected: present.length, variance: 0, se: 0 };
   const ratio = ratioFor(total, n);
   const p = present.map((c) => ratio(total - c));
   let expected = 0;

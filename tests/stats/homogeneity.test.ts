@@ -32,6 +32,16 @@ describe('χ² test of homogeneity', () => {
     expect((r.residuals[1] as number[]).map((v) => Number(v.toFixed(2)))).toEqual([-4.5, -0.7, 5.32]);
   });
 
+  // scipy 1.10.1 chi2_contingency(table, correction=False) on this 50 × 50 table, run here:
+  // X² above 2,000 is where @stdlib gammainc 0.3.1 let the p-value drift. [ref]
+  it('matches scipy chi2_contingency on a 50 × 50 table with X² = 2547 on 2401 df', () => {
+    const table = Array.from({ length: 50 }, (_, i) => Array.from({ length: 50 }, (_, j) => 13 + ((i * i * 7 + j * 13 + i * j) % 17)));
+    const r = chiSquareTest(table);
+    expect(r.df).toBe(2401);
+    expect(r.statistic).toBeCloseTo(2546.9449167526595, 9);
+    expect(Math.abs(r.p - 0.01901893100407112) / 0.01901893100407112).toBeLessThan(1e-10);
+  });
+
   it('property: its p-value agrees with jStat’s χ² CDF (an independent implementation)', () => {
     const table = fc.array(fc.array(fc.integer({ min: 1, max: 80 }), { minLength: 3, maxLength: 3 }), { minLength: 2, maxLength: 6 });
     fc.assert(

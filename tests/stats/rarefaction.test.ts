@@ -22,6 +22,15 @@ describe('rarefaction E(S_n) and its variance', () => {
     expect(rarefy([], 1)).toBeNull();
   });
 
+  // Heck et al. (1975): a draw of one grain holds exactly one type and a draw of all N
+  // holds all S, so the variance there is exactly 0 (not rounding noise).
+  it('s.e. is exactly 0 at n = 1 and at n = N', () => {
+    expect(rarefy(GIRDLED, 1)).toEqual({ n: 1, expected: 1, variance: 0, se: 0 });
+    expect(rarefy(GIRDLED, 168)).toEqual({ n: 168, expected: 26, variance: 0, se: 0 });
+    expect(rarefy([3, 400, 17], 1)?.se).toBe(0);
+    expect(rarefy([5], 5)?.se).toBe(0);
+  });
+
   const assemblage = fc.array(fc.integer({ min: 1, max: 400 }), { minLength: 1, maxLength: 60 });
 
   // Invariants of Hurlbert's (1971) formula.
@@ -32,8 +41,9 @@ describe('rarefaction E(S_n) and its variance', () => {
         const s = counts.length;
         const f1 = counts.filter((c) => c === 1).length;
         expect(rarefy(counts, total)?.expected).toBeCloseTo(s, 9);
-        expect(rarefy(counts, total)?.variance).toBeCloseTo(0, 6);
-        expect(rarefy(counts, 1)?.expected).toBeCloseTo(1, 9);
+        expect(rarefy(counts, total)?.se).toBe(0);
+        expect(rarefy(counts, 1)?.expected).toBe(1);
+        expect(rarefy(counts, 1)?.se).toBe(0);
         if (total > 1) expect(s - (rarefy(counts, total - 1)?.expected as number)).toBeCloseTo(f1 / total, 9);
       }),
       { numRuns: 200 },

@@ -80,6 +80,28 @@ describe('Sison & Glaz (1995) simultaneous intervals', () => {
     }
   });
 
+  // Issue 9 quotes statsmodels 0.15 multinomial_proportions_confint(method='sison-glaz') as
+  // percentages to 4 decimals; the full limits are from statsmodels 0.13.5 on this machine,
+  // which agrees with those. A type of over 1,000 grains puts the Poisson CDFs of the
+  // coverage probability where @stdlib gammainc 0.3.1 is wrong. [ref]
+  it.each([
+    [[1001, 100, 90, 80, 70, 60, 50], [[0.6678152998, 0.7130823535], [0.04686423156, 0.09213128525], [0.0399724328, 0.08523948649], [0.03308063405, 0.07834768773], [0.02618883529, 0.07145588897], [0.01929703653, 0.06456409021], [0.01240523777, 0.05767229145]]],
+    [[1500, 300, 200, 120, 90, 60, 40, 30], [[0.6222222222, 0.6601673753], [0.1094017094, 0.1473468625], [0.06666666667, 0.1046118197], [0.03247863248, 0.07042378555], [0.01965811966, 0.05760327273], [0.006837606838, 0.04478275991], [0, 0.03623575136], [0, 0.03196224709]]],
+  ])('matches statsmodels with a type of more than 1,000 grains: %j', (counts, reference) => {
+    sisonGlazIntervals(counts).forEach((ci, i) => {
+      expect(Math.abs(ci.low - reference[i]![0]!)).toBeLessThan(1e-8);
+      expect(Math.abs(ci.high - reference[i]![1]!)).toBeLessThan(1e-8);
+    });
+  });
+
+  it('gives the limits quoted in issue 9 (statsmodels 0.15, in percent)', () => {
+    const pct = (ci: { low: number; high: number }) => [Number((100 * ci.low).toFixed(4)), Number((100 * ci.high).toFixed(4))];
+    expect(pct(sisonGlazIntervals([1001, 100, 90, 80, 70, 60, 50])[6]!)).toEqual([1.2405, 5.7672]);
+    const big = sisonGlazIntervals([1500, 300, 200, 120, 90, 60, 40, 30]);
+    expect(pct(big[0]!)).toEqual([62.2222, 66.0167]);
+    expect(pct(big[7]!)).toEqual([0, 3.1962]);
+  });
+
   it('is narrower than Goodman’s when there are many types', () => {
     const sg = sisonGlazIntervals(EXAMPLE_3);
     const g = goodmanIntervals(EXAMPLE_3);

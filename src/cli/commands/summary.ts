@@ -53,7 +53,7 @@ function textReport(s: LevelSummary): string[] {
     lines.push(
       c.value === null
         ? `concentration –: no marker counted yet (${s.markers} markers)`
-        : `concentration ${Math.round(c.value)} ${unit} (±${(100 * (c.relativeError ?? 0)).toFixed(1)}%, 95% ${Math.round(c.low ?? 0)}–${Math.round(c.high ?? 0)}) from ${s.markers} markers${c.influx === null ? '' : ` · influx ${Math.round(c.influx)} grains/cm²/yr`}`,
+        : `concentration ${Math.round(c.value)} ${unit} (${c.relativeError === null ? 'relative error undefined until pollen is counted' : `±${(100 * c.relativeError).toFixed(1)}%`}, 95% ${Math.round(c.low ?? 0)}–${Math.round(c.high ?? 0)}) from ${s.markers} markers${c.influx === null ? '' : ` · influx ${Math.round(c.influx)} grains/cm²/yr`}`,
     );
   }
   if (s.notes.length || s.addedTypes.length) {
