@@ -1,5 +1,6 @@
-import { closeSync, fsyncSync, ftruncateSync, openSync, writeFileSync } from 'node:fs';
+import { closeSync, fsyncSync, ftruncateSync, openSync, rmSync, writeSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
+import { ExineError } from '../errors.js';
 import { fsyncDir } from '../io/fsync-dir.js';
 import type { Damage } from './scan-log.js';
 
@@ -10,6 +11,21 @@ export interface TailRepair {
   readonly backup: string;
 }
 
+/** Backups are named `FILE.cut-TIME.bak`: the next open looks for ones no repair event names. */
+export const isBackupOf = (session: string, name: string) => name.startsWith(`${basename(session)}.cut-`) && name.endsWith('.bak');
+
+/** A new backup file: never an existing name, never through a link (O_EXCL refuses both). */
+function createBackup(path: string, stamp: string): { fd: number; name: string } {
+  for (let n = 1; ; n++) {
+    const name = `${basename(path)}.cut-${stamp}${n === 1 ? '' : `-${n}`}.bak`;
+    try {
+      return { fd: openSync(join(dirname(path), name), 'wx'), name };
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code !== 'EEXIST' || n >= 100) throw error;
+    }
+  }
+}
+
 /**
  * Cut a damaged tail off a session file. The cut bytes are first saved, synced,
  * beside the session; only then is the file truncated. The caller holds the lock.
@@ -17,15 +33,24 @@ export interface TailRepair {
 export function repairTail(path: string, bytes: Buffer, damage: Damage, now: Date): TailRepair {
   const cut = bytes.subarray(damage.offset);
   const stamp = now.toISOString().replace(/[:.]/g, '-');
-  const backup = `${basename(path)}.cut-${stamp}.bak`;
-  const backupPath = join(dirname(path), backup);
-  const bfd = openSync(backupPath, 'wx');
+  let backup: { fd: number; name: string };
   try {
-    writeFileSync(bfd, cut);
-    fsyncSync(bfd);
-  } finally {
-    closeSync(bfd);
+    backup = createBackup(path, stamp);
+  } catch (error) {
+    throw new ExineError(`cannot repair ${path}: the backup of its damaged tail could not be created (${(error as NodeJS.ErrnoException).code ?? (error as Error).message}); nothing was changed`);
   }
+  const backupPath = join(dirname(path), backup.name);
+  try {
+    for (let written = 0; written < cut.length; ) written += writeSync(backup.fd, cut, written, cut.length - written);
+    fsyncSync(backup.fd);
+  } catch (error) {
+    closeSync(backup.fd);
+    rmSync(backupPath, { force: true });
+    const code = (error as NodeJS.ErrnoException).code;
+    const why = code === 'ENOSPC' ? 'the disk is full' : (code ?? (error as Error).message);
+    throw new ExineError(`cannot repair ${path}: saving its damaged tail to ${backup.name} failed (${why}); nothing was changed, the file is as it was`);
+  }
+  closeSync(backup.fd);
   fsyncDir(dirname(path));
   const fd = openSync(path, 'r+');
   try {
@@ -34,5 +59,5 @@ export function repairTail(path: string, bytes: Buffer, damage: Damage, now: Dat
   } finally {
     closeSync(fd);
   }
-  return { damage, cutBytes: cut.length, backup };
+  return { damage, cutBytes: cut.length, backup: backup.name };
 }

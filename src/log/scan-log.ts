@@ -99,7 +99,7 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
     corruption,
   });
   if (buf.length === 0) {
-    return result(null, { line: 1, offset: 0, problem: 'empty', message: 'the file is empty: it holds no level' });
+    return result(null, { line: 1, offset: 0, problem: 'empty', message: 'the file is empty: it holds no level (an older exine stopped while creating it); delete it and count the level again' });
   }
   while (pos < text.length) {
     lineNo++;

@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import * as fs from 'node:fs';
 import { dirname } from 'node:path';
 import { ExineError } from '../errors.js';
@@ -56,26 +57,38 @@ export class SessionWriter {
     private readonly clock: Clock,
   ) {}
 
-  /** Create a new session file (never an existing one) and write its first line. */
+  /**
+   * Create a new session file (never an existing one) and write its first line.
+   * Line 1 is written and synced under a name of its own, then linked into place:
+   * the level exists whole or not at all, whenever the process is stopped.
+   */
   static create(path: string, open: EventPayload, lock: SessionLock, options: WriterOptions = {}): { writer: SessionWriter; event: SessionEvent } {
+    const temp = `${path}.new-${randomBytes(6).toString('hex')}`;
     let fd: number;
     try {
-      fd = fs.openSync(path, 'wx');
+      fd = fs.openSync(temp, 'wx');
     } catch (error) {
-      const code = (error as NodeJS.ErrnoException).code;
-      throw new ExineError(
-        code === 'EEXIST' ? `${path} already exists` : `cannot create ${path}: ${(error as Error).message}`,
-      );
+      throw new ExineError(`cannot create ${path}: ${describe(error)}`);
     }
     const writer = new SessionWriter(path, fd, 0, 0, '', lock, options.ops ?? nodeWriterFs, options.clock ?? (() => new Date()));
+    let linked = false;
     try {
       const event = writer.append(open);
+      try {
+        fs.linkSync(temp, path);
+      } catch (error) {
+        const code = (error as NodeJS.ErrnoException).code;
+        throw new ExineError(code === 'EEXIST' ? `${path} already exists` : `cannot create ${path}: ${describe(error)}`);
+      }
+      linked = true;
       fsyncDir(dirname(path));
       return { writer, event };
     } catch (error) {
       writer.close();
-      fs.rmSync(path, { force: true });
       throw error;
+    } finally {
+      fs.rmSync(temp, { force: true });
+      if (!linked) fsyncDir(dirname(path));
     }
   }
 

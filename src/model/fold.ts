@@ -29,6 +29,7 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     closed: false,
     finishedAt: null,
     repairs: 0,
+    repairBackups: [],
     notes: [],
     addedTypes: [],
     ignored: [],
@@ -232,6 +233,7 @@ function step(d: Draft, event: SessionEvent): void {
       return;
     case 'repair':
       d.repairs++;
+      d.repairBackups = [...d.repairBackups, event.backup];
       return;
     case 'void':
       voidGrains(d, event);

@@ -48,6 +48,8 @@ export interface LevelState {
   /** When the analyst marked the level finished (the latest time), or null. */
   readonly finishedAt: string | null;
   readonly repairs: number;
+  /** The backups the repair events name. */
+  readonly repairBackups: readonly string[];
   /** Every note, in order. */
   readonly notes: readonly NoteRecord[];
   /** Types added while counting, in order (their keys are in `keymap`). */

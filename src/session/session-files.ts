@@ -1,10 +1,10 @@
 import { randomBytes } from 'node:crypto';
-import { existsSync } from 'node:fs';
-import { dirname } from 'node:path';
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import { dirname, join } from 'node:path';
 import { ExineError } from '../errors.js';
 import { readSessionBytes } from '../io/read-session-bytes.js';
 import type { Keymap } from '../keymap/keymap.js';
-import { repairTail } from '../log/repair-tail.js';
+import { isBackupOf, repairTail } from '../log/repair-tail.js';
 import { scanLog, type LogScan } from '../log/scan-log.js';
 import { SessionLock } from '../log/session-lock.js';
 import { SessionWriter, type WriterOptions } from '../log/session-writer.js';
@@ -27,6 +27,15 @@ export interface NewLevel {
   readonly keymap: Keymap;
   readonly rules: RuleSet;
   readonly spike: Spike | null;
+}
+
+/** Backups beside the session that no repair event names. */
+function unrecordedBackups(path: string, state: LevelState): { name: string; bytes: number }[] {
+  const named = new Set(state.repairBackups);
+  return readdirSync(dirname(path))
+    .filter((name) => isBackupOf(path, name) && !named.has(name))
+    .sort()
+    .map((name) => ({ name, bytes: statSync(join(dirname(path), name)).size }));
 }
 
 /** Scan a file's bytes and fold its valid events as they are read, keeping none of them. */
@@ -137,6 +146,11 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
       if (repaired) {
         const { damage, cutBytes, backup } = repaired;
         record({ type: 'repair', damage: damage.message, line: damage.line, cutBytes, backup });
+      }
+      // A repair stopped between its cut and its record left a backup that no repair event names.
+      for (const orphan of unrecordedBackups(path, state)) {
+        record({ type: 'repair', damage: 'a repair was stopped before it was recorded; its backup was found at this open', line: state.lastSeq + 1, cutBytes: orphan.bytes, backup: orphan.name });
+        notices.push(`found ${orphan.name} (${orphan.bytes} bytes cut off by a repair that was stopped before it was recorded); it is recorded now and kept`);
       }
       record({ type: 'sitting', sitting: state.sitting + 1 });
       const before = state;
