@@ -6,6 +6,7 @@ import { fsyncDir } from '../io/fsync-dir.js';
 import type { EventPayload, SessionEvent } from '../model/events.js';
 import { checkEventContent } from './check-event.js';
 import { encodeLine } from './line-codec.js';
+import { recordUnconfirmed } from './unconfirmed.js';
 import type { SessionLock } from './session-lock.js';
 
 /** The file operations the writer uses; tests swap in ones that fail like a full disk. */
@@ -148,12 +149,36 @@ export class SessionWriter {
     } catch (error) {
       // A failed fsync is never retried: the kernel may have dropped the data it reported on.
       this.readOnlyReason = `syncing ${this.path} to disk failed (${describe(error)})`;
-      throw new AppendError(`not confirmed on disk: ${this.readOnlyReason}; the session is now read-only`, true);
+      const after = this.disown(events, error);
+      throw new AppendError(`not confirmed on disk: ${this.readOnlyReason}; ${after}; the session is now read-only`, true);
     }
     this.size += bytes.length;
     this.seq += events.length;
     this.lastHash = hash;
     return events;
+  }
+
+  /**
+   * The lines of a write whose sync failed were never shown as counted: cut them
+   * back, and leave a marker so the next sitting checks that the cut held, or asks
+   * the analyst about the lines that stayed.
+   */
+  private disown(events: readonly SessionEvent[], error: unknown): string {
+    let cut = true;
+    try {
+      this.ops.ftruncateSync(this.fd, this.size);
+    } catch {
+      cut = false;
+    }
+    const marked = recordUnconfirmed(this.path, {
+      afterBytes: this.size,
+      fromSeq: events[0]?.seq ?? this.seq + 1,
+      toSeq: events.at(-1)?.seq ?? this.seq,
+      at: new Date().toISOString(),
+      reason: describe(error),
+    });
+    if (cut) return 'those keys were cut back from the file and counted nothing';
+    return marked ? 'those keys could not be cut back: the next sitting names them and asks whether to keep them' : 'those keys could not be cut back, and no note of them could be written: check the last lines with exine audit';
   }
 
   private cutBack(): void {

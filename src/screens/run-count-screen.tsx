@@ -12,7 +12,7 @@ const SIGNALS = { SIGINT: 2, SIGHUP: 1, SIGTERM: 15 } as const;
  * unmounted (raw mode off, cursor back). Grains are on disk already.
  */
 export async function runCountScreen(opened: OpenedLevel, options: { bell?: boolean; rareThreshold?: number; breakMinutes?: number | null } = {}): Promise<number> {
-  const session = new CountingSession(opened.writer, opened.state, opened.notices);
+  const session = new CountingSession(opened.writer, opened.state, opened.notices, opened.unconfirmed);
   const instance = render(<CountScreen session={session} bell={options.bell ?? true} rareThreshold={options.rareThreshold ?? 2} breakMinutes={options.breakMinutes ?? null} />, { exitOnCtrlC: false, patchConsole: false });
   let exitCode = 0;
   const stop = (code: number) => {

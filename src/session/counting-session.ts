@@ -4,7 +4,9 @@ import type { EventPayload } from '../model/events.js';
 import { applyEvents } from '../model/fold.js';
 import type { LevelState } from '../model/level-state.js';
 import type { InputMode } from './input-mode.js';
+import { unconfirmedQuestion } from './mode-keys.js';
 import { planBurst, type Message } from './plan-burst.js';
+import type { UnconfirmedGrains } from './session-files.js';
 
 export interface Snapshot {
   readonly state: LevelState;
@@ -30,14 +32,16 @@ export class CountingSession {
     private readonly writer: SessionWriter,
     state: LevelState,
     notices: readonly string[] = [],
+    private readonly unconfirmed?: UnconfirmedGrains,
   ) {
+    const mode: InputMode | null = unconfirmed ? { kind: 'unconfirmed', fromSeq: unconfirmed.fromSeq, toSeq: unconfirmed.toSeq, grains: unconfirmed.grains } : null;
     this.snapshot = {
       state,
-      message: null,
+      message: mode?.kind === 'unconfirmed' ? { text: unconfirmedQuestion(mode), tone: 'warning' } : null,
       notice: notices.length ? notices.join(' · ') : null,
       readOnly: writer.readOnly,
       closed: false,
-      mode: null,
+      mode,
     };
   }
 
@@ -69,8 +73,11 @@ export class CountingSession {
    */
   pressAll(keys: readonly KeyPress[]): 'quit' | undefined {
     if (this.snapshot.closed) return undefined;
+    const asked = this.snapshot.mode?.kind === 'unconfirmed';
     const plan = planBurst(this.snapshot.state, this.snapshot.mode, keys);
     if (plan.payloads.length > 0 && !this.commit(plan.payloads)) return undefined;
+    // The answer about grains of a failed sync is on disk: the marker beside the file has done its work.
+    if (asked && plan.mode?.kind !== 'unconfirmed') this.unconfirmed?.answered();
     this.publish({ mode: plan.mode, ...(plan.message === undefined ? {} : { message: plan.message }) });
     return plan.quit ? 'quit' : undefined;
   }

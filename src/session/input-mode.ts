@@ -1,4 +1,5 @@
 import type { Group } from '../keymap/groups.js';
+import type { CountedGrain } from '../model/level-state.js';
 
 /** What the next keys mean when they are not counting: a question, a line being typed, the help. */
 export type InputMode =
@@ -7,7 +8,9 @@ export type InputMode =
   /** A note on the grain `grain` (null: on the level), being typed. */
   | { readonly kind: 'note'; readonly grain: number | null; readonly taxon: string | null; readonly text: string }
   /** The name and group of a type that is not in the keymap, being typed. */
-  | { readonly kind: 'new-type'; readonly text: string };
+  | { readonly kind: 'new-type'; readonly text: string }
+  /** Grains written while a sync to disk failed, never shown as counted: keep them or void them. */
+  | { readonly kind: 'unconfirmed'; readonly fromSeq: number; readonly toSeq: number; readonly grains: readonly CountedGrain[] };
 
 /** "@12.4,88.1 cf. Tilia cordata" → the stage position and the words. */
 export function parseNote(text: string): { text: string; stage: { x: number; y: number } | null } {

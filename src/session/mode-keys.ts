@@ -91,6 +91,36 @@ function newTypeKey(b: Burst, mode: ModeOf<'new-type'>, key: KeyPress): Outcome 
   return 'go-on';
 }
 
+/** The question asked at opening after a failed sync, in words. */
+export function unconfirmedQuestion(mode: ModeOf<'unconfirmed'>): string {
+  const list = mode.grains.slice(0, 4).map((g) => `#${g.seq} ${g.taxon}`).join(', ');
+  const more = mode.grains.length > 4 ? ` and ${mode.grains.length - 4} more` : '';
+  const n = mode.grains.length;
+  return `${n === 1 ? 'A grain was' : `${n} grains were`} written while a disk sync failed and never shown as counted (${list}${more}): k keeps ${n === 1 ? 'it' : 'them'}, v voids ${n === 1 ? 'it' : 'them'}`;
+}
+
+/** k keeps the grains of a failed sync (a note on the level says so), v voids each of them; any other key counts nothing and asks again. */
+function unconfirmedKey(b: Burst, mode: ModeOf<'unconfirmed'>, key: KeyPress): Outcome {
+  if (key.kind === 'interrupt') return 'quit';
+  const answer = key.kind === 'char' ? key.char.toLowerCase() : '';
+  const range = mode.fromSeq === mode.toSeq ? `#${mode.fromSeq}` : `#${mode.fromSeq}–#${mode.toSeq}`;
+  if (answer === 'k') {
+    b.stage({ type: 'note', text: `kept ${mode.grains.length} grains of ${range}, written while a disk sync failed`, grain: null, stage: null });
+    b.mode = null;
+    b.say(`kept: ${mode.grains.length} grains of ${range} count`);
+    return 'go-on';
+  }
+  if (answer === 'v') {
+    for (const g of mode.grains) b.stage({ type: 'void', grain: g.seq, traverse: null, reason: 'not confirmed on disk when counted (a disk sync failed); voided at the next sitting' });
+    b.judge();
+    b.mode = null;
+    b.say(`voided: ${mode.grains.length} grains of ${range} no longer count`);
+    return 'go-on';
+  }
+  b.say(`that key counted nothing: ${unconfirmedQuestion(mode)}`, 'warning');
+  return 'go-on';
+}
+
 /** A key while a question, the help or a typed line is open: one reducer per mode. */
 export function modeKey(b: Burst, mode: InputMode, key: KeyPress): Outcome {
   switch (mode.kind) {
@@ -102,6 +132,8 @@ export function modeKey(b: Burst, mode: InputMode, key: KeyPress): Outcome {
       return noteKey(b, mode, key);
     case 'new-type':
       return newTypeKey(b, mode, key);
+    case 'unconfirmed':
+      return unconfirmedKey(b, mode, key);
     default:
       return mode satisfies never;
   }

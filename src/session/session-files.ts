@@ -8,18 +8,29 @@ import { isBackupOf, repairTail } from '../log/repair-tail.js';
 import { scanLog, type LogScan } from '../log/scan-log.js';
 import { SessionLock } from '../log/session-lock.js';
 import { SessionWriter, type WriterOptions } from '../log/session-writer.js';
+import { clearUnconfirmed, readUnconfirmed, unconfirmedPathOf } from '../log/unconfirmed.js';
 import { describeRules, sameRules, type RuleSet } from '../rules/rule-set.js';
 import type { Spike } from '../stats/concentration.js';
 import { rulesSignal } from '../model/rules-signal.js';
 import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent, type RestorePayload, type SessionEvent, type VoidPayload } from '../model/events.js';
 import { applyEvent, applyEvents, foldEvents, startFold, type Folding } from '../model/fold.js';
-import type { LevelState } from '../model/level-state.js';
+import type { CountedGrain, LevelState } from '../model/level-state.js';
 
 export interface OpenedLevel {
   readonly writer: SessionWriter;
   readonly state: LevelState;
   /** What the analyst should be told on opening: repairs, an unclean last exit, a lock taken over. */
   readonly notices: readonly string[];
+  /** Grains written while a sync to disk failed, which the analyst keeps or voids before counting on. */
+  readonly unconfirmed?: UnconfirmedGrains | undefined;
+}
+
+export interface UnconfirmedGrains {
+  readonly fromSeq: number;
+  readonly toSeq: number;
+  readonly grains: readonly CountedGrain[];
+  /** Call once the answer is on disk: the marker is no longer needed. */
+  readonly answered: () => void;
 }
 
 export interface NewLevel {
@@ -133,6 +144,7 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
       );
     }
     let state = folded;
+    const unconfirmed = unconfirmedAtOpen(path, scan.goodBytes, state, notices);
     if (state.finishedAt) {
       notices.push(`this level was marked finished on ${state.finishedAt.slice(0, 10)}; grains counted now are added after that`);
     } else if (!repaired && !state.closed) {
@@ -168,11 +180,36 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
       writer.close();
       throw error;
     }
-    return { writer, state, notices };
+    return { writer, state, notices, unconfirmed };
   } catch (error) {
     lock.release();
     throw error;
   }
+}
+
+/** What a marker of a failed sync, left by an earlier sitting, means now. */
+function unconfirmedAtOpen(path: string, goodBytes: number, state: LevelState, notices: string[]): UnconfirmedGrains | undefined {
+  const marker = readUnconfirmed(path);
+  if (!marker) return undefined;
+  const name = unconfirmedPathOf(path).split('/').at(-1);
+  if (marker.reason === 'unreadable marker') {
+    notices.push(`${name} says a sync to disk failed at an earlier sitting, but it cannot be read; check the last lines with exine audit, then delete ${name}`);
+    return undefined;
+  }
+  const range = marker.fromSeq === marker.toSeq ? `#${marker.fromSeq}` : `#${marker.fromSeq}–#${marker.toSeq}`;
+  if (goodBytes <= marker.afterBytes) {
+    notices.push(`a sync to disk failed at the last sitting; what it could not confirm (${range}) was cut back and is not in the file`);
+    clearUnconfirmed(path);
+    return undefined;
+  }
+  const grains: CountedGrain[] = [];
+  for (let g = state.stack; g && g.seq >= marker.fromSeq; g = g.below) if (g.seq <= marker.toSeq) grains.unshift({ seq: g.seq, taxon: g.taxon, traverse: g.traverse });
+  if (grains.length === 0) {
+    notices.push(`a sync to disk failed at the last sitting; the lines it could not confirm (${range}) stayed in the file and hold no grain that counts`);
+    clearUnconfirmed(path);
+    return undefined;
+  }
+  return { fromSeq: marker.fromSeq, toSeq: marker.toSeq, grains, answered: () => clearUnconfirmed(path) };
 }
 
 /**
