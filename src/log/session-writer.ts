@@ -46,6 +46,8 @@ export class AppendError extends ExineError {
 export class SessionWriter {
   private readOnlyReason: string | null = null;
   private closed = false;
+  /** False while line 1 is written under its temporary name: a failure then leaves no level at all. */
+  private inPlace = true;
 
   private constructor(
     readonly path: string,
@@ -72,6 +74,7 @@ export class SessionWriter {
       throw new ExineError(`cannot create ${path}: ${describe(error)}`);
     }
     const writer = new SessionWriter(path, fd, 0, 0, '', lock, options.ops ?? nodeWriterFs, options.clock ?? (() => new Date()));
+    writer.inPlace = false;
     let linked = false;
     try {
       const event = writer.append(open);
@@ -82,6 +85,7 @@ export class SessionWriter {
         throw new ExineError(code === 'EEXIST' ? `${path} already exists` : `cannot create ${path}: ${describe(error)}`);
       }
       linked = true;
+      writer.inPlace = true;
       fsyncDir(dirname(path));
       return { writer, event };
     } catch (error) {
@@ -170,6 +174,7 @@ export class SessionWriter {
     } catch {
       cut = false;
     }
+    if (!this.inPlace) return 'the level was not created';
     const marked = recordUnconfirmed(this.path, {
       afterBytes: this.size,
       fromSeq: events[0]?.seq ?? this.seq + 1,
