@@ -48,7 +48,7 @@ export interface SideColumn {
 }
 
 export type CountMain =
-  | { readonly kind: 'help'; readonly panel: Panel }
+  | { readonly kind: 'help'; readonly panel: Panel & { readonly height: number } }
   | { readonly kind: 'panels'; readonly height: number; readonly table: Panel; readonly sideWidth: number; readonly gap: number; readonly columns: readonly SideColumn[] };
 
 /** Values whose rise rings the bell: the latest rules-met event's seq, the types found, the break spans passed. */
