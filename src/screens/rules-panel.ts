@@ -1,9 +1,8 @@
-import { Box, Text } from 'ink';
 import type { RuleReport, RuleStatus } from '../rules/evaluate-rules.js';
 import type { Concentration } from '../stats/concentration.js';
 import { compact, ruleValue } from '../text/numbers.js';
 import { fit, right } from '../text/cells.js';
-import type { Theme } from './theme.js';
+import { line, type Line } from './styled-line.js';
 
 /** A lone target-sum rule is already the sum panel; the rules panel shows anything more. */
 export function showsRulesPanel(report: RuleReport): boolean {
@@ -47,22 +46,17 @@ export function concentrationLine(c: Concentration): string {
   return `conc ${compact(c.value)}${unit} ±${Math.round(100 * (c.relativeError ?? 0))}%`;
 }
 
-export function RulesPanel({ report, conc, theme, width }: { report: RuleReport; conc: Concentration | null; theme: Theme; width: number }) {
-  return (
-    <Box flexDirection="column" width={width}>
-      {showsRulesPanel(report) ? (
-        <>
-          <Text bold>{fit(`Stop if ${report.mode === 'all' ? 'all' : 'any'}${report.minSum ? ` · sum≥${report.minSum}` : ''}`, width)}</Text>
-          {report.rules.map((r) => (
-            <Text key={r.rule} color={r.met ? theme.ok : undefined}>
-              {fit(ruleLine(r, width), width)}
-            </Text>
-          ))}
-        </>
-      ) : null}
-      {conc ? <Text>{fit(concentrationLine(conc), width)}</Text> : null}
-    </Box>
-  );
+/** The rule set's mode, each rule against its goal (in the "ok" tone once met), and the concentration. */
+export function rulesLines(report: RuleReport, conc: Concentration | null, width: number): Line[] {
+  return [
+    ...(showsRulesPanel(report)
+      ? [
+          line(fit(`Stop if ${report.mode === 'all' ? 'all' : 'any'}${report.minSum ? ` · sum≥${report.minSum}` : ''}`, width), { bold: true }),
+          ...report.rules.map((r) => line(fit(ruleLine(r, width), width), { tone: r.met ? 'ok' : undefined })),
+        ]
+      : []),
+    ...(conc ? [line(fit(concentrationLine(conc), width))] : []),
+  ];
 }
 
 /** The stop signal in words, across the screen: the count can stop; the analyst decides. */

@@ -1,5 +1,7 @@
-import { Box, Text } from 'ink';
 import { GROUPS, type Group } from '../keymap/groups.js';
+import type { LevelTable } from '../stats/level-table.js';
+import { bar, fit, right } from '../text/cells.js';
+import { line, type Line } from './styled-line.js';
 
 const SHORT: Readonly<Record<Group, string>> = {
   trees: 'Trees',
@@ -11,9 +13,6 @@ const SHORT: Readonly<Record<Group, string>> = {
   indeterminable: 'Indet',
   other: 'Other',
 };
-import type { LevelTable } from '../stats/level-table.js';
-import { bar, fit, right } from '../text/cells.js';
-import type { Theme } from './theme.js';
 
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
@@ -36,10 +35,10 @@ function groupCell(table: LevelTable, g: Group, width: number): string {
   return `${fit(capital(g), Math.max(4, width - 6 - share.length - (outside ? 2 : 0)))} ${right(String(n), 5)}${share}${outside ? ' *' : ''}`;
 }
 
-export function SumPanel({ table, target, theme, width, compact = false }: { table: LevelTable; target: number | null; theme: Theme; width: number; compact?: boolean }) {
+/** The pollen sum against its target as a bar, then the group subtotals: whole, or two to a line when short of rows. */
+export function sumLines(table: LevelTable, target: number | null, width: number, compact = false): Line[] {
   const groups = shownGroups(table);
   const half = Math.floor((width - 1) / 2);
-  // Short of rows, two groups share a line, in short words.
   const pairs: string[] = [];
   if (compact) {
     for (let i = 0; i < groups.length; i += 2) {
@@ -50,18 +49,10 @@ export function SumPanel({ table, target, theme, width, compact = false }: { tab
   }
   const reached = target !== null && table.pollenSum >= target;
   const barWidth = Math.max(6, Math.min(30, width - 7));
-  return (
-    <Box flexDirection="column" width={width}>
-      <Text bold>{target === null ? `Pollen sum ${table.pollenSum}` : `Pollen sum ${table.pollenSum} / ${target}`}</Text>
-      {target === null ? null : (
-        <Text color={reached ? theme.ok : theme.accent}>
-          {`${bar(table.pollenSum / target, barWidth)} ${right(`${Math.floor((100 * table.pollenSum) / target)}%`, 4)}`}
-        </Text>
-      )}
-      {reached ? <Text color={theme.ok} bold>TARGET SUM REACHED</Text> : null}
-      {compact
-        ? pairs.map((line, i) => <Text key={i}>{line}</Text>)
-        : groups.map((g) => <Text key={g}>{groupCell(table, g, width)}</Text>)}
-    </Box>
-  );
+  return [
+    line(target === null ? `Pollen sum ${table.pollenSum}` : `Pollen sum ${table.pollenSum} / ${target}`, { bold: true }),
+    ...(target === null ? [] : [line(`${bar(table.pollenSum / target, barWidth)} ${right(`${Math.floor((100 * table.pollenSum) / target)}%`, 4)}`, { tone: reached ? 'ok' : 'accent' })]),
+    ...(reached ? [line('TARGET SUM REACHED', { tone: 'ok', bold: true })] : []),
+    ...(compact ? pairs.map((p) => line(p)) : groups.map((g) => line(groupCell(table, g, width)))),
+  ];
 }

@@ -1,9 +1,8 @@
-import { Box, Text } from 'ink';
 import type { Group } from '../keymap/groups.js';
 import { keyLabel } from '../keymap/keymap.js';
 import type { LevelTable, TaxonRow } from '../stats/level-table.js';
 import { ci, fit, pct, right } from '../text/cells.js';
-import type { Theme } from './theme.js';
+import { line, type Line } from './styled-line.js';
 
 const GROUP_SHORT: Readonly<Record<Group, string>> = {
   trees: 'tree',
@@ -40,33 +39,27 @@ export function visibleRows(rows: readonly TaxonRow[], room: number): { shown: T
   return { shown, hidden: rows.length - shown.length };
 }
 
-function line(r: TaxonRow, taxonWidth: number): string {
+function rowText(r: TaxonRow, taxonWidth: number): string {
   const key = r.key === null ? '' : keyLabel(r.key);
   return `${fit(key, 3)} ${fit(r.taxon, taxonWidth)} ${fit(GROUP_SHORT[r.group], 6)} ${right(String(r.count), 5)} ${right(pct(r.percent), 5)}  ${ci(r.ciLow, r.ciHigh)}`;
 }
 
-export interface TotalsTableProps {
-  readonly table: LevelTable;
-  readonly room: number;
-  readonly theme: Theme;
-  /** The taxon of the grain recorded last, marked so a glance confirms the key. */
-  readonly justCounted: string | null;
-  readonly taxonWidth: number;
-}
-
-export function TotalsTable({ table, room, theme, justCounted, taxonWidth }: TotalsTableProps) {
+/**
+ * The totals table: a title, a row per taxon that fits in `room`, and how many
+ * rows did not. The taxon of the grain recorded last is marked, so a glance
+ * confirms the key.
+ */
+export function totalsLines(table: LevelTable, room: number, justCounted: string | null, taxonWidth: number): Line[] {
   const { shown, hidden } = visibleRows(table.rows, room);
   const width = tableWidth(taxonWidth);
-  return (
-    <Box flexDirection="column" width={width}>
-      <Text bold>{`${fit('Key', 3)} ${fit('Taxon', taxonWidth)} ${fit('Group', 6)} ${right('Count', 5)} ${right('%', 5)}  95% CI`}</Text>
-      {shown.map((r) => (
-        <Text key={r.taxon} color={r.count === 0 ? theme.zero : undefined} bold={r.taxon === justCounted}>
-          {fit(`${line(r, taxonWidth)}${r.inSum ? '' : ' *'}`, width - 2)}
-          {r.taxon === justCounted ? '◀' : ''}
-        </Text>
-      ))}
-      {hidden > 0 ? <Text color={theme.zero}>{`… ${hidden} more taxa not shown (a taller terminal shows them)`}</Text> : null}
-    </Box>
-  );
+  return [
+    line(`${fit('Key', 3)} ${fit('Taxon', taxonWidth)} ${fit('Group', 6)} ${right('Count', 5)} ${right('%', 5)}  95% CI`, { bold: true }),
+    ...shown.map((r) =>
+      line(`${fit(`${rowText(r, taxonWidth)}${r.inSum ? '' : ' *'}`, width - 2)}${r.taxon === justCounted ? '◀' : ''}`, {
+        tone: r.count === 0 ? 'zero' : undefined,
+        bold: r.taxon === justCounted,
+      }),
+    ),
+    ...(hidden > 0 ? [line(`… ${hidden} more taxa not shown (a taller terminal shows them)`, { tone: 'zero' })] : []),
+  ];
 }

@@ -1,6 +1,6 @@
-import { Box, Text } from 'ink';
 import { keyLabel, type Keymap } from '../keymap/keymap.js';
 import { fit } from '../text/cells.js';
+import { line, type Line } from './styled-line.js';
 
 /** The keymap and the actions, in columns that fit `width`: what the help overlay shows. */
 export function helpLines(keymap: Keymap, width: number, room: number): string[] {
@@ -24,14 +24,7 @@ export function helpLines(keymap: Keymap, width: number, room: number): string[]
   return (lines.length > room ? [...lines.slice(0, room - 1), '… (a taller terminal shows every key)'] : lines).map((l) => fit(l, width));
 }
 
-export function HelpOverlay({ keymap, width, room }: { keymap: Keymap; width: number; room: number }) {
-  return (
-    <Box flexDirection="column" width={width} height={room}>
-      {helpLines(keymap, width, room).map((line, i) => (
-        <Text key={i} bold={i === 0} inverse={i === 0}>
-          {line}
-        </Text>
-      ))}
-    </Box>
-  );
+/** The help overlay: its title across the screen, inverse, then the keys. */
+export function helpOverlay(keymap: Keymap, width: number, room: number): Line[] {
+  return helpLines(keymap, width, room).map((text, i) => line(text, { bold: i === 0, inverse: i === 0 }));
 }

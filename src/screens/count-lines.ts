@@ -1,0 +1,68 @@
+import { keyLabel, type Keymap } from '../keymap/keymap.js';
+import type { LevelState } from '../model/level-state.js';
+import type { Snapshot } from '../session/counting-session.js';
+import type { InputMode } from '../session/input-mode.js';
+import { formatDuration } from '../text/durations.js';
+import { line, truncated, type Line } from './styled-line.js';
+import { stopBanner } from './rules-panel.js';
+
+/** The level heading and the traverse, sitting and break line. */
+export function headingLines(state: LevelState, sittingMs: number, breakMinutes: number | null, breakDue: boolean): Line[] {
+  const h = state.header;
+  const where = [h.site, h.core].filter(Boolean).join(' ');
+  const depth = h.depth === null ? '' : ` · depth ${h.depth}`;
+  return [
+    truncated(`${where ? `${where} · ` : ''}level ${h.level}${depth} · slide ${h.slide ?? '–'}`, { bold: true, tone: 'accent' }),
+    {
+      spans: [
+        { text: `traverse ${state.traverse}`, bold: true },
+        { text: ` · sitting ${state.sitting} · ${formatDuration(sittingMs)}` },
+        ...(breakDue ? [{ text: ` · time to rest your eyes (${breakMinutes} min)`, bold: true, tone: 'warning' as const }] : []),
+      ],
+      wrap: 'truncate-end',
+    },
+  ];
+}
+
+/**
+ * The stop banner across the screen, drawn from what the file records (the
+ * fold's rules-met / rules-unmet), never from a verdict of the screen's own.
+ */
+export function stopBannerLine(state: LevelState, width: number): Line | null {
+  if (!state.rulesMet) return null;
+  const text = stopBanner(state.lastRulesMet?.sum ?? null);
+  return truncated(text.length >= width ? text.slice(0, width) : text + ' '.repeat(width - text.length), { bold: true, inverse: true });
+}
+
+function promptOf(mode: InputMode | null): string | null {
+  if (mode?.kind === 'note') {
+    const on = mode.grain === null ? 'the level' : `#${mode.grain} ${mode.taxon ?? ''}`.trim();
+    return `Note on ${on} (Enter saves, Esc cancels, "@x,y" = stage position): ${mode.text}█`;
+  }
+  if (mode?.kind === 'new-type') return `New type as "name, group" (Enter counts one grain, Esc cancels): ${mode.text}█`;
+  return null;
+}
+
+/** The status under the panels: read-only reason, a typed line, the last message, or what opening found. */
+export function statusArea(snapshot: Snapshot, width: number): { readonly height: number; readonly line: Line } {
+  const prompt = promptOf(snapshot.mode);
+  const text = snapshot.readOnly
+    ? `READ-ONLY: ${snapshot.readOnly}`
+    : prompt
+      ? `${snapshot.message ? `${snapshot.message.text} · ` : ''}${prompt}`
+      : (snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '));
+  // The status takes the lines it needs (up to 3; word wrap wastes some of each line).
+  const height = Math.min(3, Math.max(1, Math.ceil([...text].length / Math.max(20, width - 12))));
+  const tone = snapshot.message?.tone === 'error' || snapshot.readOnly ? 'error' : prompt ? undefined : 'warning';
+  return { height, line: line(text, { tone, bold: prompt !== null }, 'wrap') };
+}
+
+/** The actions' keys on the last line, in short words below 100 columns. */
+export function keysLine(keymap: Keymap, width: number): Line {
+  const a = keymap.actions;
+  const text =
+    width >= 100
+      ? `${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} traverse · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new type · ${keyLabel(a.help)} help · Ctrl-F finish · Ctrl-C quit`
+      : `${keyLabel(a.undo).replace('Backspace', 'Bksp')} undo · ${keyLabel(a.traverse)} trav · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new · ${keyLabel(a.help)} help · ^F finish · ^C quit`;
+  return truncated(text, { tone: 'dim' });
+}
