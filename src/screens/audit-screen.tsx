@@ -1,13 +1,13 @@
-import { Box, useApp, useInput } from 'ink';
+import { Box, useApp } from 'ink';
 import { useEffect, useRef, useState } from 'react';
 import type { AuditRead, AuditSource } from '../audit/audit-source.js';
-import { splitKeys } from '../input/key-press.js';
 import type { RestorePayload, VoidPayload } from '../model/events.js';
 import { auditKey, START_UI, type AuditUi, type AuditView } from './audit-keys.js';
 import { auditScreenView, keyViewOf } from './audit-view.js';
 import { StyledLines, StyledText } from './styled-text.js';
 import { useTerminalSize } from './terminal-size.js';
 import { themeFor } from './theme.js';
+import { useRawKeys } from './use-raw-keys.js';
 
 /** "void of grain #12", "void of traverse 3", "restore of void #20": for the message after recording. */
 function correctionWords(c: VoidPayload | RestorePayload): string {
@@ -45,8 +45,8 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
     return () => clearInterval(timer);
   }, [source, pollMs]);
 
-  useInput((input, key) => {
-    for (const press of splitKeys(input, key)) {
+  useRawKeys((presses) => {
+    for (const press of presses) {
       let next = auditKey(uiRef.current, press, viewRef.current as AuditView);
       if (next.pending) {
         try {

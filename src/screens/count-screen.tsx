@@ -1,12 +1,12 @@
-import { Box, useApp, useInput, useStdout } from 'ink';
+import { Box, useApp, useStdout } from 'ink';
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
-import { splitKeys } from '../input/key-press.js';
 import type { CountingSession } from '../session/counting-session.js';
 import { ringOnce, ringStopSignal } from './bell.js';
 import { countScreenView, levelFacts, type CountMain } from './count-view.js';
 import { PanelBox, StyledLines, StyledText } from './styled-text.js';
 import { useTerminalSize } from './terminal-size.js';
 import { themeFor, type Theme } from './theme.js';
+import { useRawKeys } from './use-raw-keys.js';
 
 function useNow(intervalMs: number): number {
   const [now, setNow] = useState(() => Date.now());
@@ -83,8 +83,8 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   useRingOnRise(view.rings.breaks, bell, ringOnce);
 
   // Every key of a burst is applied in order against the session, never against a rendered value.
-  useInput((input, key) => {
-    if (session.pressAll(splitKeys(input, key)) === 'quit') {
+  useRawKeys((keys) => {
+    if (session.pressAll(keys) === 'quit') {
       session.shutdown();
       exit();
     }

@@ -4,7 +4,7 @@ import type { EventPayload, OpenEvent, SessionEvent } from '../../src/model/even
 import { applyEvent, foldEvents } from '../../src/model/fold.js';
 import { decide } from '../../src/session/command-event.js';
 import { resolveKey } from '../../src/keymap/resolve-key.js';
-import { splitKeys } from '../../src/input/key-press.js';
+import { splitRaw } from '../../src/input/key-press.js';
 import { RECENT_EVENTS, type LevelState } from '../../src/model/level-state.js';
 import { NO_RULES, type RuleSet } from '../../src/rules/rule-set.js';
 import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
@@ -83,7 +83,7 @@ describe('the fold of a level', () => {
         let state = foldEvents(open, TINY_KEYMAP, []);
         const model: string[] = [];
         let traverses = 1;
-        for (const press of splitKeys(presses.join(''), {})) {
+        for (const press of splitRaw(presses.join(''))) {
           const d = decide(state, resolveKey(TINY_KEYMAP, press));
           if (d.kind === 'record') state = applyEvent(state, { ...d.payload, seq: state.lastSeq + 1, at: at(state.lastSeq + 1) } as SessionEvent);
           if (press.kind === 'char' && TINY_KEYMAP.keys[press.char]) model.push(TINY_KEYMAP.keys[press.char]!.taxon);

@@ -1,6 +1,6 @@
 import * as fs from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { splitKeys } from '../../src/input/key-press.js';
+import { splitRaw } from '../../src/input/key-press.js';
 import type { WriterFs } from '../../src/log/session-writer.js';
 import { CountingSession } from '../../src/session/counting-session.js';
 import { readLevel, resumeLevel } from '../../src/session/session-files.js';
@@ -38,7 +38,7 @@ function session() {
   return { path, ops, s: new CountingSession(opened.writer, opened.state) };
 }
 
-const keys = (text: string) => splitKeys(text, {});
+const keys = (text: string) => splitRaw(text);
 
 describe('a burst of keys', () => {
   it('goes to disk with one fsync, and only then moves the state', () => {

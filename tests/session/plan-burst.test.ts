@@ -1,13 +1,15 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { splitKeys } from '../../src/input/key-press.js';
+import { splitRaw } from '../../src/input/key-press.js';
+// Ink's own parser (not exported by the package): the screens see its events.
+import { createInputParser } from '../../node_modules/ink/build/input-parser.js';
 import type { OpenEvent, SessionEvent } from '../../src/model/events.js';
 import { applyEvents, foldEvents } from '../../src/model/fold.js';
 import { FINISH_PROMPT, planBurst } from '../../src/session/plan-burst.js';
 import { TINY_KEYMAP, openPayload } from '../helpers/levels.js';
 
 const start = foldEvents({ ...openPayload(), seq: 1, at: '2026-11-02T09:00:00.000Z' } as OpenEvent, TINY_KEYMAP, []);
-const plan = (text: string, confirming = false) => planBurst(start, confirming ? { kind: 'confirm-finish' } : null, splitKeys(text, {}));
+const plan = (text: string, confirming = false) => planBurst(start, confirming ? { kind: 'confirm-finish' } : null, splitRaw(text));
 
 describe('planning a burst of keys', () => {
   it('predicts seq numbers so an undo in the burst names the grain typed just before it', () => {
@@ -56,7 +58,7 @@ describe('planning a burst of keys', () => {
     const open = plan('a\rhal');
     expect(open.mode).toEqual({ kind: 'note', grain: 2, taxon: 'Alnus', text: 'hal' });
     expect(open.payloads).toHaveLength(1);
-    const cancelled = planBurst(start, open.mode, splitKeys('f\x7f\x1baa', {}));
+    const cancelled = planBurst(start, open.mode, splitRaw('f\x7f\x1baa'));
     expect(cancelled.payloads).toEqual([
       { type: 'grain', taxon: 'Alnus', traverse: 1, key: 'a' },
       { type: 'grain', taxon: 'Alnus', traverse: 1, key: 'a' },
@@ -93,15 +95,27 @@ describe('planning a burst of keys', () => {
 
 
 describe('bursts split anywhere', () => {
-  /** Plan and fold each burst in turn, as the session does, carrying the mode between bursts. */
-  function run(bursts: readonly string[]) {
+  /**
+   * Each chunk the terminal delivers goes through Ink's own input parser, which
+   * splits it at escape sequences and holds a trailing Esc until the read is over;
+   * each of its events reaches the screen as one call, planned and folded in turn
+   * as the session does, the mode carried from one to the next.
+   */
+  function run(chunks: readonly string[]) {
+    const parser = createInputParser();
+    const events: string[] = [];
+    for (const chunk of chunks) {
+      events.push(...parser.push(chunk));
+      const pending = parser.flushPendingEscape();
+      if (pending) events.push(pending);
+    }
     let state = start;
     let mode: ReturnType<typeof planBurst>['mode'] = null;
     const payloads: unknown[] = [];
-    for (const text of bursts) {
-      const p = planBurst(state, mode, splitKeys(text, {}));
-      const events = p.payloads.map((e, i) => ({ ...e, seq: state.lastSeq + 1 + i, at: state.lastAt }) as SessionEvent);
-      state = applyEvents(state, events);
+    for (const text of events) {
+      const p = planBurst(state, mode, splitRaw(text));
+      const stamped = p.payloads.map((e, i) => ({ ...e, seq: state.lastSeq + 1 + i, at: state.lastAt }) as SessionEvent);
+      state = applyEvents(state, stamped);
       payloads.push(...p.payloads);
       mode = p.mode;
       if (p.quit) break;
@@ -109,8 +123,12 @@ describe('bursts split anywhere', () => {
     return { payloads, counts: state.counts, notes: state.notes.map((n) => [n.grain, n.text, n.stage]), mode };
   }
 
-  it('property: the same keys give the same events however the terminal chunks them (fast-check)', () => {
-    const key = fc.constantFrom('a', 'b', 's', 'l', '\r', '=', '\x1b', '\x7f', '\t', 'x', ',', ' ', 'h', '@', '1', '?', 'A');
+  /** The keys one at a time, each its own read: what the analyst typed, with no chunking at all. */
+  const oneByOne = (text: string) => run([...text]);
+
+  it('property: the same keys give the same events however the terminal chunks them, Esc and every input mode included (fast-check)', () => {
+    // Enter opens a note, = a new type, ? the help, Ctrl-F the finish question; Esc cancels; y answers.
+    const key = fc.constantFrom('a', 'b', 's', 'l', '\r', '=', '\x1b', '\x1b', '\x7f', '\t', 'x', ',', ' ', 'h', '@', '1', '?', 'A', '\x06', 'y', 'q');
     fc.assert(
       fc.property(fc.array(key, { maxLength: 60 }), fc.array(fc.integer({ min: 0, max: 60 }), { maxLength: 8 }), (keys, cuts) => {
         const text = keys.join('');
@@ -123,9 +141,19 @@ describe('bursts split anywhere', () => {
         }
         bursts.push(text.slice(from));
         // A terminal never delivers an empty chunk (an empty input is a special key of its own).
-        expect(run(bursts.filter(Boolean))).toEqual(run([text]));
+        const expected = oneByOne(text);
+        expect(run(bursts.filter(Boolean))).toEqual(expected);
+        expect(run([text])).toEqual(expected);
       }),
       { numRuns: 500 },
     );
+  });
+
+  it('an Esc and a key in one read are two keys: q Esc q counts two grains, and Esc still cancels a note', () => {
+    const grains = (r: ReturnType<typeof run>) => r.payloads.filter((p) => (p as { type: string }).type === 'grain').length;
+    expect(grains(run(['a\x1ba']))).toBe(2);
+    const note = run(['a\rtext\x1ba']);
+    expect(note.notes).toEqual([]);
+    expect(grains(note)).toBe(2);
   });
 });
