@@ -43,7 +43,9 @@ export function ruleLine(r: RuleStatus, room: number): string {
 export function concentrationLine(c: Concentration): string {
   const unit = c.unit === 'grains/cm3' ? '/cm³' : '/g';
   if (c.value === null) return `conc. – (no marker yet)`;
-  return `conc ${compact(c.value)}${unit} ±${Math.round(100 * (c.relativeError ?? 0))}%`;
+  // With no pollen counted the relative error is undefined, not zero.
+  const error = c.relativeError === null ? ' ± –' : ` ±${Math.round(100 * c.relativeError)}%`;
+  return `conc ${compact(c.value)}${unit}${error}`;
 }
 
 /** The rule set's mode, each rule against its goal (in the "ok" tone once met), and the concentration. */
