@@ -7,6 +7,28 @@ export function lineOf(text: string, offset: number): number {
   return line;
 }
 
+/** Deeper than this is no keymap, and a parser that recurses would run out of stack. */
+export const MAX_DEPTH = 64;
+
+/** The line where nesting passes MAX_DEPTH, or null; strings are skipped. */
+function tooDeep(text: string): number | null {
+  let depth = 0;
+  let line = 1;
+  let inString = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 10) line++;
+    if (inString) {
+      if (c === 92) i++;
+      else if (c === 34) inString = false;
+    } else if (c === 34) inString = true;
+    else if (c === 123 || c === 91) {
+      if (++depth > MAX_DEPTH) return line;
+    } else if (c === 125 || c === 93) depth--;
+  }
+  return null;
+}
+
 export interface DuplicateProperty {
   readonly path: readonly string[];
   readonly name: string;
@@ -21,6 +43,8 @@ export interface DuplicateProperty {
 export function parseStrictJson(
   text: string,
 ): { ok: true; value: unknown; duplicates: DuplicateProperty[] } | { ok: false; message: string } {
+  const deep = tooDeep(text);
+  if (deep) return { ok: false, message: `line ${deep}: nested more than ${MAX_DEPTH} levels deep (a keymap is three levels deep)` };
   const errors: ParseError[] = [];
   const value: unknown = parse(text, errors, { disallowComments: true, allowTrailingComma: false });
   const first = errors[0];
@@ -31,6 +55,7 @@ export function parseStrictJson(
     };
   }
   const duplicates: DuplicateProperty[] = [];
+  let protoLine: number | undefined;
   // One entry per open object or array: its property name (null in arrays and at the root)
   // and, for objects, the names seen so far.
   const open: { name: string | null; names: Map<string, number> | null }[] = [];
@@ -46,9 +71,11 @@ export function parseStrictJson(
       onArrayBegin: () => begin(false),
       onObjectEnd: () => void open.pop(),
       onArrayEnd: () => void open.pop(),
-      onObjectProperty: (name, offset) => {
+      onObjectProperty: (name, _offset, _length, startLine) => {
         const names = open[open.length - 1]?.names;
-        const line = lineOf(text, offset);
+        // The parser counts lines as it goes: counting them again per property would be quadratic.
+        const line = startLine + 1;
+        if (name === '__proto__') protoLine ??= line;
         const before = names?.get(name);
         if (before !== undefined) {
           const path = open.map((o) => o.name).filter((n): n is string => n !== null);
@@ -62,6 +89,8 @@ export function parseStrictJson(
     },
     { disallowComments: true },
   );
+  // JSON.parse and the JSON parser would make "__proto__" the object's prototype, not a field: it would vanish without a word.
+  if (protoLine !== undefined) return { ok: false, message: `line ${protoLine}: "__proto__" cannot be a name in a keymap` };
   return { ok: true, value, duplicates };
 }
 

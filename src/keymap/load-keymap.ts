@@ -1,3 +1,4 @@
+import { isUtf8 } from 'node:buffer';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -27,9 +28,9 @@ export function isBundledKeymap(path: string): boolean {
 
 export function loadKeymap(nameOrPath: string): { keymap: Keymap; path: string } {
   const path = resolveKeymapPath(nameOrPath);
-  let text: string;
+  let bytes: Buffer;
   try {
-    text = readFileSync(path, 'utf8');
+    bytes = readFileSync(path);
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
     if (code === 'ENOENT') {
@@ -38,7 +39,23 @@ export function loadKeymap(nameOrPath: string): { keymap: Keymap; path: string }
     throw new ExineError(`keymap ${nameOrPath}: cannot be read (${code ?? String(error)})`);
   }
   const shown = isBundledKeymap(path) ? `keymaps/${basename(path)}` : nameOrPath;
-  const result = parseKeymap(text, shown);
+  // Decoding would quietly turn bad bytes into U+FFFD, and a taxon name with them.
+  if (!isUtf8(bytes)) throw new ExineError(`keymap ${shown}: line ${firstBadUtf8Line(bytes)} is not valid UTF-8; save the file as UTF-8`);
+  const result = parseKeymap(bytes.toString('utf8'), shown);
   if (!result.ok) throw new ExineError(result.message);
   return { keymap: result.keymap, path };
+}
+
+/** The 1-based line holding the first byte that is not UTF-8. */
+export function firstBadUtf8Line(bytes: Buffer): number {
+  let line = 1;
+  let start = 0;
+  for (let i = 0; i <= bytes.length; i++) {
+    if (i === bytes.length || bytes[i] === 10) {
+      if (!isUtf8(bytes.subarray(start, i))) return line;
+      line++;
+      start = i + 1;
+    }
+  }
+  return line;
 }

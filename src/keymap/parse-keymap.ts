@@ -11,6 +11,7 @@ import {
   type TaxonBinding,
 } from './keymap.js';
 import { describeIssue } from '../validation/describe-issue.js';
+import { hasUnseen, UNSEEN, visible } from '../text/visible.js';
 
 const keymapShape = z.object({
   name: z.string().trim().min(1),
@@ -25,13 +26,18 @@ const keymapShape = z.object({
 
 export type KeymapResult = { ok: true; keymap: Keymap } | { ok: false; message: string };
 
-/** A single printable character: one code point, not a control character. */
+// Nothing a person sees on a key, or a terminal acts on: see text/visible.ts. A combining mark alone is no key either.
+const COMBINING = /^[\p{Mn}\p{Me}]$/u;
+
+/** A single printable character: one code point that a person can see on a key. */
 export function isPrintableKey(key: string): boolean {
   const points = [...key];
   if (points.length !== 1) return false;
-  const code = key.codePointAt(0) ?? 0;
-  return code >= 0x20 && code !== 0x7f && !(code >= 0x80 && code < 0xa0);
+  return !UNSEEN.test(key) && !COMBINING.test(key);
 }
+
+/** A name shown on screens and in files: no control or format character that a terminal could act on. */
+export const hasUnseenCharacter = hasUnseen;
 
 function isActionKey(key: string): boolean {
   return (NAMED_KEYS as readonly string[]).includes(key) || (isPrintableKey(key) && key !== ' ');
@@ -57,15 +63,16 @@ export function parseKeymap(text: string, source: string): KeymapResult {
 /** Check an already-parsed keymap value, e.g. the copy held in a session file. */
 export function checkKeymapValue(value: unknown, source: string): KeymapResult {
   const fail = (message: string): KeymapResult => ({ ok: false, message: `keymap ${source}: ${message}` });
-  const shape = keymapShape.safeParse(value);
+  const shape = keymapShape.safeParse(value, { reportInput: true });
   if (!shape.success) return fail(describeIssue(shape.error.issues[0]));
   const raw = shape.data;
+  if (hasUnseenCharacter(raw.name)) return fail(`"name" has a control or invisible character ("${visible(raw.name)}"); type the name plainly`);
 
   const keys: Record<string, TaxonBinding> = {};
   const keyOfTaxon = new Map<string, string>();
   for (const [key, binding] of Object.entries(raw.keys)) {
     if (!isPrintableKey(key)) {
-      return fail(`key ${JSON.stringify(key)} must be a single printable character`);
+      return fail(`key "${visible(key)}" must be a single character a person can see on the keyboard (not a control, zero-width, combining or invisible character)`);
     }
     if (!isGroup(binding.group)) {
       return fail(
@@ -73,9 +80,11 @@ export function checkKeymapValue(value: unknown, source: string): KeymapResult {
       );
     }
     const taxon = binding.taxon.trim();
-    const other = keyOfTaxon.get(taxon);
+    if (hasUnseenCharacter(taxon)) return fail(`key "${visible(key)}" has a taxon name with a control or invisible character ("${visible(taxon)}"); type the name plainly`);
+    // Names that differ only in how accents are encoded are one name (compared in NFC); the file's own spelling is kept.
+    const other = keyOfTaxon.get(taxon.normalize('NFC'));
     if (other !== undefined) return fail(`taxon "${taxon}" is on two keys, "${other}" and "${key}"; keep one`);
-    keyOfTaxon.set(taxon, key);
+    keyOfTaxon.set(taxon.normalize('NFC'), key);
     keys[key] = { taxon, group: binding.group };
   }
   if (Object.keys(keys).length === 0) return fail('"keys" is empty; bind at least one taxon');

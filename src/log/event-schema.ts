@@ -161,7 +161,7 @@ export function parseEventObject(value: unknown): { ok: true; event: ParsedEvent
   const record = value as Record<string, unknown>;
   if (typeof value === 'object' && value !== null && isPlainGrain(record)) return { ok: true, event: value as ParsedEvent };
   const schema = (typeof record?.type === 'string' && byType.get(record.type)) || eventSchema;
-  const result = schema.safeParse(value);
+  const result = schema.safeParse(value, { reportInput: true });
   if (!result.success) return { ok: false, issue: result.error.issues[0] };
   // The checked value itself, not zod's stripped copy: unknown fields stay with the event.
   return { ok: true, event: value as ParsedEvent };

@@ -1,4 +1,4 @@
-import { isAscii } from 'node:buffer';
+import { isAscii, isUtf8 } from 'node:buffer';
 import type { Keymap } from '../keymap/keymap.js';
 import { checkEventContent, References, type Problem } from './check-event.js';
 import type { ParsedEvent } from './event-schema.js';
@@ -84,6 +84,7 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
   // for the offsets a repair cuts at. In pure ASCII a character is a byte.
   const text = buf.toString('utf8');
   const ascii = isAscii(buf);
+  const utf8 = ascii || isUtf8(buf);
   let pos = 0;
   let bytePos = 0;
   let lineNo = 0;
@@ -111,7 +112,11 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
       return lineNo === 1 ? result(null, { ...damage, message: `${damage.message}; the level was never created` }) : result(damage, null);
     }
     const line = text.slice(pos, nl);
-    const check = checkLine(line, lineNo, lastHash);
+    let check = checkLine(line, lineNo, lastHash);
+    // Bytes that are not UTF-8 decode as U+FFFD and so fail the hash: say what they are.
+    if (!check.ok && check.problem === 'hash-mismatch' && !utf8 && line.includes('\uFFFD')) {
+      check = { ok: false, problem: 'hash-mismatch', message: `line ${lineNo} is not valid UTF-8: its bytes were changed after it was written` };
+    }
     if (!check.ok) {
       const damage: Damage = { line: lineNo, offset: bytePos, problem: check.problem, message: check.message };
       // Only physical damage of the very last line is cut off: a line whose own hash holds was

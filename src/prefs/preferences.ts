@@ -40,7 +40,7 @@ export interface PrefsView {
 
 export function readPreferences(): PrefsView {
   const conf = store();
-  const checked = STORED.safeParse(conf.store);
+  const checked = STORED.safeParse(conf.store, { reportInput: true });
   if (!checked.success) {
     throw new ExineError(`preferences cannot be read: ${describeIssue(checked.error.issues[0])} in ${conf.path}; fix or delete the file (exine prefs set writes good values)`);
   }
