@@ -66,7 +66,7 @@ describe('keymap files', () => {
   it('refuses two actions on one key, multi-character keys, control keys and a missing field', () => {
     expect(err('{"name":"x","keys":{"q":{"taxon":"Q","group":"trees"}},"actions":{"undo":"tab"}}')).toMatch(/both actions "undo" and "traverse"/);
     expect(err('{"name":"x","keys":{"qu":{"taxon":"Q","group":"trees"}}}')).toMatch(/key "qu" must be a single character a person can see on the keyboard/);
-    expect(err('{"name":"x","keys":{"\\t":{"taxon":"Q","group":"trees"}}}')).toMatch(/single printable character/);
+    expect(err('{"name":"x","keys":{"\\t":{"taxon":"Q","group":"trees"}}}')).toMatch(/key "\\u\{9\}" must be a single character a person can see/);
     expect(err('{"name":"x","keys":{"q":{"group":"trees"}}}')).toMatch(/"keys\.q\.taxon" is missing/);
     expect(err('{"keys":{"q":{"taxon":"Q","group":"trees"}}}')).toMatch(/"name" is missing/);
   });
