@@ -1,12 +1,14 @@
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { UsageError } from '../errors.js';
+import { hasUnseen, visible } from '../text/visible.js';
 
 type Options = NonNullable<ParseArgsConfig['options']>;
 
 /** node:util parseArgs in strict mode, with its errors turned into one-line usage errors. --help is handled in main.ts. */
 export function parseFlags<O extends Options>(command: string, args: string[], options: O) {
+  let parsed;
   try {
-    return parseArgs({ args, options, allowPositionals: true, strict: true });
+    parsed = parseArgs({ args, options, allowPositionals: true, strict: true });
   } catch (error) {
     // node's messages run over several lines; the first says what is wrong.
     const message = ((error as Error).message.split('\n')[0] ?? '')
@@ -15,6 +17,13 @@ export function parseFlags<O extends Options>(command: string, args: string[], o
       .replace(/argument is ambiguous\.?$/, 'needs a value (a value starting with "-" is written --flag=-1)');
     throw new UsageError(`exine ${command}: ${message.charAt(0).toLowerCase()}${message.slice(1)} (see exine ${command} --help)`);
   }
+  // What is typed here is recorded in files and printed again: nothing in it may act on a terminal.
+  for (const [flag, value] of Object.entries(parsed.values)) {
+    if (typeof value === 'string' && hasUnseen(value)) {
+      throw new UsageError(`exine ${command}: --${flag} has a control or invisible character ("${visible(value)}"); type it plainly`);
+    }
+  }
+  return parsed;
 }
 
 /** `hint` is added to the message, e.g. " (or off to drop the rule)". */

@@ -1,3 +1,5 @@
+import { hasUnseen } from '../text/visible.js';
+
 /** One key as the counting screen sees it, after a chunk of terminal input is split. */
 export type KeyPress =
   | { readonly kind: 'char'; readonly char: string }
@@ -44,8 +46,8 @@ function sequenceEnd(data: string, i: number): number {
 function charKey(char: string): KeyPress {
   const control = CONTROL[char];
   if (control) return control;
-  const code = char.codePointAt(0) ?? 0;
-  if (code < 0x20 || (code >= 0x80 && code < 0xa0)) return { kind: 'ignored', what: `control 0x${code.toString(16)}` };
+  // Controls, direction overrides, zero-width marks: no key a person means, and never text for a note.
+  if (hasUnseen(char)) return { kind: 'ignored', what: `invisible character U+${(char.codePointAt(0) ?? 0).toString(16).toUpperCase().padStart(4, '0')}` };
   return { kind: 'char', char };
 }
 

@@ -57,21 +57,34 @@ export function parseKeymap(text: string, source: string): KeymapResult {
     const where = dup.path.length ? ` in "${dup.path.join('.')}"` : '';
     return fail(`field "${dup.name}" appears twice${where} (lines ${dup.firstLine} and ${dup.line}); keep one`);
   }
-  return checkKeymapValue(json.value, source);
+  return checkKeymapValue(json.value, source, true);
 }
 
-/** Check an already-parsed keymap value, e.g. the copy held in a session file. */
-export function checkKeymapValue(value: unknown, source: string): KeymapResult {
+/** The key rule of the first exine versions: one code point, not a C0 or C1 control. Session files written then keep reading. */
+function isRecordedKey(key: string): boolean {
+  const points = [...key];
+  if (points.length !== 1) return false;
+  const code = key.codePointAt(0) ?? 0;
+  return code >= 0x20 && code !== 0x7f && !(code >= 0x80 && code < 0xa0);
+}
+
+/**
+ * Check an already-parsed keymap value. `strict` for a keymap a person made:
+ * keys must be visible and names free of control characters. A copy held in a
+ * session file is read as it was recorded, and printed with those characters
+ * escaped (text/visible.ts), so an old or foreign level stays readable.
+ */
+export function checkKeymapValue(value: unknown, source: string, strict = false): KeymapResult {
   const fail = (message: string): KeymapResult => ({ ok: false, message: `keymap ${source}: ${message}` });
   const shape = keymapShape.safeParse(value, { reportInput: true });
   if (!shape.success) return fail(describeIssue(shape.error.issues[0]));
   const raw = shape.data;
-  if (hasUnseenCharacter(raw.name)) return fail(`"name" has a control or invisible character ("${visible(raw.name)}"); type the name plainly`);
+  if (strict && hasUnseenCharacter(raw.name)) return fail(`"name" has a control or invisible character ("${visible(raw.name)}"); type the name plainly`);
 
   const keys: Record<string, TaxonBinding> = {};
   const keyOfTaxon = new Map<string, string>();
   for (const [key, binding] of Object.entries(raw.keys)) {
-    if (!isPrintableKey(key)) {
+    if (!(strict ? isPrintableKey(key) : isRecordedKey(key))) {
       return fail(`key "${visible(key)}" must be a single character a person can see on the keyboard (not a control, zero-width, combining or invisible character)`);
     }
     if (!isGroup(binding.group)) {
@@ -80,7 +93,7 @@ export function checkKeymapValue(value: unknown, source: string): KeymapResult {
       );
     }
     const taxon = binding.taxon.trim();
-    if (hasUnseenCharacter(taxon)) return fail(`key "${visible(key)}" has a taxon name with a control or invisible character ("${visible(taxon)}"); type the name plainly`);
+    if (strict && hasUnseenCharacter(taxon)) return fail(`key "${visible(key)}" has a taxon name with a control or invisible character ("${visible(taxon)}"); type the name plainly`);
     // Names that differ only in how accents are encoded are one name (compared in NFC); the file's own spelling is kept.
     const other = keyOfTaxon.get(taxon.normalize('NFC'));
     if (other !== undefined) return fail(`taxon "${taxon}" is on two keys, "${other}" and "${key}"; keep one`);

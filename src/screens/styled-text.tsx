@@ -1,6 +1,8 @@
 import { Box, Text } from 'ink';
 import type { Line, Panel, Span } from './styled-line.js';
 import type { Theme } from './theme.js';
+// Every text drawn passes here: names from a keymap or level from elsewhere cannot act on the terminal.
+import { visible } from '../text/visible.js';
 
 function styleOf(span: Span, theme: Theme) {
   const { bold, inverse, tone } = span;
@@ -19,7 +21,7 @@ export function StyledText({ line, theme }: { line: Line; theme: Theme }) {
   if (only && more.length === 0) {
     return (
       <Text wrap={line.wrap} {...styleOf(only, theme)}>
-        {only.text}
+        {visible(only.text)}
       </Text>
     );
   }
@@ -27,10 +29,10 @@ export function StyledText({ line, theme }: { line: Line; theme: Theme }) {
     <Text wrap={line.wrap}>
       {line.spans.map((s, i) =>
         plain(s) ? (
-          s.text
+          visible(s.text)
         ) : (
           <Text key={i} {...styleOf(s, theme)}>
-            {s.text}
+            {visible(s.text)}
           </Text>
         ),
       )}

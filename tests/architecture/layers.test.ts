@@ -9,7 +9,8 @@ import { describe, expect, it } from 'vitest';
  */
 const LAYERS: readonly (readonly string[])[] = [
   ['errors'],
-  ['text', 'validation', 'input', 'io'],
+  ['text', 'validation', 'io'],
+  ['input'],
   ['keymap', 'prefs'],
   ['stats'],
   ['rules'],

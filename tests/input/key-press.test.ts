@@ -25,3 +25,9 @@ describe('splitting raw terminal input into keys', () => {
     expect(kinds('\x01\x9b')).toEqual(['ignored', 'ignored']);
   });
 });
+
+describe('characters no one means to type', () => {
+  it('drops direction overrides, zero-width marks and C1 controls instead of taking them as keys or note text', () => {
+    expect(splitRaw('a\u202eb\u200bc\u009b').map((k) => k.kind)).toEqual(['char', 'ignored', 'char', 'ignored', 'char', 'ignored']);
+  });
+});
