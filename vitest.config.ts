@@ -3,6 +3,8 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['tests/**/*.test.{ts,tsx}'],
+    // A temp folder for the run that must be empty at its end; a config folder per test file.
+    globalSetup: ['tests/helpers/run-temp-folder.ts'],
     setupFiles: ['tests/helpers/isolate-config.ts'],
     // Crash and lock tests start real child processes; keep the pool small on 2 cores.
     maxWorkers: 2,

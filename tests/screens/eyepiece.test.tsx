@@ -56,7 +56,7 @@ describe('notes', () => {
     const again = await screen({ columns: 140, rows: 45, path: s.path });
     expect(again.frame()).toMatch(/  t1 @3\.5,70 grain folded/);
     again.session.shutdown();
-    const rows = parse(runExine(['export', s.path, '--format', 'notes']).stdout, { columns: true }) as Record<string, string>[];
+    const rows = parse((await runExine(['export', s.path, '--format', 'notes'])).stdout, { columns: true }) as Record<string, string>[];
     expect(rows).toEqual([expect.objectContaining({ taxon: 'Betula', traverse: '1', stage_x: '3.5', stage_y: '70', text: 'grain folded', level: 'T-1' })]);
   });
 });
@@ -80,7 +80,7 @@ describe('a type that is not in the keymap', () => {
     await again.type('A');
     expect(again.session.getSnapshot().state.counts).toEqual({ 'Ilex aquifolium': 4 });
     again.session.shutdown();
-    const rows = parse(runExine(['export', s.path]).stdout, { columns: true }) as Record<string, string>[];
+    const rows = parse((await runExine(['export', s.path])).stdout, { columns: true }) as Record<string, string>[];
     expect(rows.find((r) => r.taxon === 'Ilex aquifolium')).toMatchObject({ group: 'shrubs', count: '4', in_sum: 'yes' });
   });
 
