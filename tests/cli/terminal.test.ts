@@ -7,12 +7,10 @@ import { readLevel, resumeLevel } from '../../src/session/session-files.js';
 import { demoFolder } from '../../src/demo/demo-copy.js';
 import { startInPty } from '../helpers/pty.js';
 import { tempDir } from '../helpers/temp-dir.js';
+import { until } from '../helpers/until.js';
 
 /** SIGKILL is delivered asynchronously: wait until the process is gone (or a zombie) before reading its file. */
-async function untilDead(pid: number) {
-  for (let i = 0; i < 200 && isProcessRunning(pid); i++) await new Promise((r) => setTimeout(r, 10));
-  expect(isProcessRunning(pid)).toBe(false);
-}
+const untilDead = (pid: number) => until(() => expect(isProcessRunning(pid)).toBe(false));
 
 // End-to-end: the real program in a real pseudo-terminal, keys typed as bursts.
 describe('exine count in a terminal', () => {
