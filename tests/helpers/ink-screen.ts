@@ -1,5 +1,5 @@
 import type { render } from 'ink-testing-library';
-import { expect } from 'vitest';
+import { expect, onTestFinished } from 'vitest';
 import { until } from './until.js';
 
 export { until } from './until.js';
@@ -13,6 +13,8 @@ type Rendered = ReturnType<typeof render>;
  * never for a time.
  */
 export async function driveScreen(ui: Rendered) {
+  // A screen left mounted would keep its clock ticking for the rest of the worker's files.
+  onTestFinished(() => ui.unmount());
   // Ink starts reading keys in an effect after the first frame: keys written before that are lost.
   await until(() => {
     if (ui.stdin.listenerCount('readable') === 0) throw new Error('the screen never started reading keys');
