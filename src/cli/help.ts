@@ -5,7 +5,7 @@ Usage
 
 Commands
   count FILE     count a level: creates FILE, or resumes it
-  demo           count a copy of the demo level in a temporary folder
+  demo           count a fresh copy of the demo level (in the temp folder)
   audit FILE     review a level traverse by traverse; correct it (--plain: a report)
   summary FILE   statistics and stop-rule state of a level
   export FILE…   levels as CSV (long, wide, or their notes)
@@ -79,8 +79,10 @@ Examples
   demo: `Usage
   exine demo
 
-Copies the half-counted demo level (demo-sessions/) into a temporary folder
-and opens it for counting. The bundled demo files are never changed.`,
+Copies the half-counted demo level (demo-sessions/) into your demo folder
+under the temporary folder (exine-demo-USER) and opens it for counting. Each
+run starts from a fresh copy, replacing the last one; the path is printed on
+exit. The bundled demo files are never changed.`,
   audit: `Usage
   exine audit FILE [--plain] [--double-press MS] [--gap MIN]
 

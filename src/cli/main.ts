@@ -1,7 +1,8 @@
 import { EXIT, ExineError, UsageError } from '../errors.js';
 import { HELP, MAIN_HELP } from './help.js';
+import { processIo, type Io } from './io.js';
 
-type Command = (args: string[]) => number | Promise<number>;
+type Command = (args: string[], io: Io) => number | Promise<number>;
 
 // Loaded on demand: only count and demo pay for Ink and React.
 const COMMANDS: Readonly<Record<string, () => Promise<Command>>> = {
@@ -15,24 +16,25 @@ const COMMANDS: Readonly<Record<string, () => Promise<Command>>> = {
   prefs: async () => (await import('./commands/prefs.js')).prefsCommand,
 };
 
-export async function main(argv: string[]): Promise<number> {
+/** Run one exine command line; returns the exit code (the caller sets it on the process). */
+export async function main(argv: string[], io: Io = processIo()): Promise<number> {
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
-    process.stdout.write(`${MAIN_HELP}\n`);
+    io.stdout.write(`${MAIN_HELP}\n`);
     return name === undefined ? EXIT.usage : EXIT.ok;
   }
   const load = COMMANDS[name];
   const help = HELP[name];
   if (load && help && (rest.includes('--help') || rest.includes('-h'))) {
-    process.stdout.write(`${help}\n`);
+    io.stdout.write(`${help}\n`);
     return EXIT.ok;
   }
   try {
     if (!load) throw new UsageError(`exine: unknown command "${name}" (commands: ${Object.keys(COMMANDS).join(', ')}; see exine --help)`);
-    return await (await load())(rest);
+    return await (await load())(rest, io);
   } catch (error) {
     if (error instanceof ExineError) {
-      process.stderr.write(`${error.message.startsWith('exine') ? '' : 'exine: '}${error.message}\n`);
+      io.stderr.write(`${error.message.startsWith('exine') ? '' : 'exine: '}${error.message}\n`);
       return error.exitCode;
     }
     throw error;

@@ -9,10 +9,10 @@ import { parseKeymap } from './parse-keymap.js';
 export const BUNDLED_KEYMAP_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../keymaps');
 export const DEFAULT_KEYMAP = 'temperate-lowland';
 
-/** A path, or the name of a bundled keymap ("keypad" finds keymaps/keypad.json). */
-export function resolveKeymapPath(nameOrPath: string): string {
+/** A path (from `cwd`), or the name of a bundled keymap ("keypad" finds keymaps/keypad.json). */
+export function resolveKeymapPath(nameOrPath: string, cwd = process.cwd()): string {
   const bundled = join(BUNDLED_KEYMAP_DIR, `${nameOrPath}.json`);
-  return /^[a-z0-9-]+$/.test(nameOrPath) && existsSync(bundled) ? bundled : resolve(nameOrPath);
+  return /^[a-z0-9-]+$/.test(nameOrPath) && existsSync(bundled) ? bundled : resolve(cwd, nameOrPath);
 }
 
 export function bundledNames(): string[] {
@@ -26,8 +26,8 @@ export function isBundledKeymap(path: string): boolean {
   return dirname(resolve(path)) === BUNDLED_KEYMAP_DIR;
 }
 
-export function loadKeymap(nameOrPath: string): { keymap: Keymap; path: string } {
-  const path = resolveKeymapPath(nameOrPath);
+export function loadKeymap(nameOrPath: string, cwd = process.cwd()): { keymap: Keymap; path: string } {
+  const path = resolveKeymapPath(nameOrPath, cwd);
   let bytes: Buffer;
   try {
     bytes = readFileSync(path);

@@ -18,12 +18,12 @@ const STORED = z
   .loose();
 
 /** The preference store: the user's config folder, or EXINE_CONFIG_DIR (tests point it at a temp folder). */
-function store(): Conf<Partial<Preferences>> {
+function store(env: NodeJS.ProcessEnv): Conf<Partial<Preferences>> {
   try {
     return new Conf<Partial<Preferences>>({
       projectName: 'exine',
       projectSuffix: '',
-      ...(process.env.EXINE_CONFIG_DIR ? { cwd: process.env.EXINE_CONFIG_DIR } : {}),
+      ...(env.EXINE_CONFIG_DIR ? { cwd: env.EXINE_CONFIG_DIR } : {}),
       clearInvalidConfig: false,
     });
   } catch (error) {
@@ -38,8 +38,8 @@ export interface PrefsView {
   readonly path: string;
 }
 
-export function readPreferences(): PrefsView {
-  const conf = store();
+export function readPreferences(env: NodeJS.ProcessEnv = process.env): PrefsView {
+  const conf = store(env);
   const checked = STORED.safeParse(conf.store, { reportInput: true });
   if (!checked.success) {
     throw new ExineError(`preferences cannot be read: ${describeIssue(checked.error.issues[0])} in ${conf.path}; fix or delete the file (exine prefs set writes good values)`);
@@ -50,10 +50,10 @@ export function readPreferences(): PrefsView {
   return { prefs: prefs as unknown as Preferences, set, path: conf.path };
 }
 
-export function writePreference<N extends PrefName>(name: N, value: Preferences[N]): void {
-  store().set(name, value as never);
+export function writePreference<N extends PrefName>(name: N, value: Preferences[N], env: NodeJS.ProcessEnv = process.env): void {
+  store(env).set(name, value as never);
 }
 
-export function clearPreference(name: PrefName): void {
-  store().delete(name);
+export function clearPreference(name: PrefName, env: NodeJS.ProcessEnv = process.env): void {
+  store(env).delete(name);
 }

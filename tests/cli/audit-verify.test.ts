@@ -34,9 +34,9 @@ function crafted(): string {
 }
 
 describe('exine audit --plain', () => {
-  it('prints the traverse-by-traverse story, the evenness test, flags, corrections and integrity', () => {
+  it('prints the traverse-by-traverse story, the evenness test, flags, corrections and integrity', async () => {
     const dir = crafted();
-    const run = runExine(['audit', 'level.jsonl', '--plain'], dir);
+    const run = await runExine(['audit', 'level.jsonl', '--plain'], dir);
     expect(run.code).toBe(0);
     const out = run.stdout;
     expect(out).toMatch(/^Audit of level\.jsonl\n/);
@@ -53,27 +53,27 @@ describe('exine audit --plain', () => {
     expect(out).toMatch(/Corrections: none/);
   });
 
-  it('lists the notes with their grains and stage positions, and the types added', () => {
-    const out = runExine(['audit', 'demo-sessions/km1-084cm.jsonl', '--plain'], join(import.meta.dirname, '../..')).stdout;
+  it('lists the notes with their grains and stage positions, and the types added', async () => {
+    const out = (await runExine(['audit', 'demo-sessions/km1-084cm.jsonl', '--plain'], join(import.meta.dirname, '../..'))).stdout;
     expect(out).toMatch(/Notes \(4\)\n/);
     expect(out).toMatch(/  #\d+ on grain #\d+ Ilex aquifolium, traverse 4, stage 21\.7, 93\.2: not in the keymap/);
     expect(out).toMatch(/Types added while counting: Ilex aquifolium \(key A\)/);
   });
 
-  it('shows a correction made on the audit screen', () => {
+  it('shows a correction made on the audit screen', async () => {
     const dir = crafted();
     // seq 3 is the first Alnus of traverse 1.
     correctLevel(join(dir, 'level.jsonl'), { type: 'void', grain: 3, traverse: null, reason: 'pressed a for b' });
-    const out = runExine(['audit', 'level.jsonl', '--plain'], dir).stdout;
+    const out = (await runExine(['audit', 'level.jsonl', '--plain'], dir)).stdout;
     expect(out).toMatch(/Corrections \(1\)\n  #\d+ \d{4}-\d\d-\d\d \d\d:\d\d  void of grain #3 \(Alnus, traverse 1\): "pressed a for b"/);
     expect(out).toMatch(/\n\s+1  2026-11-02 09:00\s+[\d:]+\s+39\s+3\s+[\d.]+\s+3\s+0\s+1/);
   });
 
-  it('--double-press and --gap change the thresholds; bad values are usage errors', () => {
+  it('--double-press and --gap change the thresholds; bad values are usage errors', async () => {
     const dir = crafted();
-    const out = runExine(['audit', 'level.jsonl', '--plain', '--double-press', '30', '--gap', '10'], dir).stdout;
+    const out = (await runExine(['audit', 'level.jsonl', '--plain', '--double-press', '30', '--gap', '10'], dir)).stdout;
     expect(out).toMatch(/Flags for review: none/);
-    const bad = runExine(['audit', 'level.jsonl', '--plain', '--gap', 'soon'], dir);
+    const bad = await runExine(['audit', 'level.jsonl', '--plain', '--gap', 'soon'], dir);
     expect(bad.code).toBe(2);
     expect(oneLine(bad)).toMatch(/--gap must be a whole number above 0, not "soon"/);
   });
@@ -81,19 +81,26 @@ describe('exine audit --plain', () => {
   it('audits a level while another process appends to it, without a lock and without changing it', async () => {
     const dir = crafted();
     const path = join(dir, 'level.jsonl');
+    const before = readForAudit(path, OPTIONS).state.grains;
     const child = startChild([TALLY_CHILD, path]);
     await child.waitFor(/ready/);
+    // The last seq the counting process has on disk.
+    const acked = (out = child.stdout()) => Math.max(0, ...[...out.matchAll(/^ack (\d+)$/gm)].map((m) => Number(m[1])));
     const typing = setInterval(() => child.proc.stdin.write('abcabc'), 3);
     try {
-      let last = 0;
-      for (let i = 0; i < 40; i++) {
-        const read = readForAudit(path, OPTIONS);
-        expect(read.state.grains).toBeGreaterThanOrEqual(last);
-        last = read.state.grains;
-        await new Promise((r) => setTimeout(r, 5));
+      let last = readForAudit(path, OPTIONS).state;
+      for (let read = 0; read < 5; read++) {
+        // Wait for grains the last read cannot have seen, then read again.
+        await child.waitFor((out) => acked(out) > last.lastSeq);
+        const onDisk = acked();
+        const audit = readForAudit(path, OPTIONS);
+        // Every grain on disk when the read began is in it.
+        expect(audit.state.lastSeq).toBeGreaterThanOrEqual(onDisk);
+        expect(audit.state.grains).toBeGreaterThan(last.grains);
+        last = audit.state;
       }
-      expect(last).toBeGreaterThan(92);
-      const run = runExine(['audit', path, '--plain']);
+      expect(last.grains).toBeGreaterThan(before);
+      const run = await runExine(['audit', path, '--plain']);
       expect(run.code).toBe(0);
     } finally {
       clearInterval(typing);
@@ -101,7 +108,7 @@ describe('exine audit --plain', () => {
       await child.exited();
     }
     // The counting process never saw the audit: its file is whole.
-    expect(runExine(['verify', path]).code).toBe(0);
+    expect((await runExine(['verify', path])).code).toBe(0);
   });
 });
 
@@ -109,8 +116,8 @@ describe('exine verify', () => {
   const lines = (dir: string) => readFileSync(join(dir, 'level.jsonl'), 'utf8').split('\n');
   const write = (dir: string, text: string[]) => writeFileSync(join(dir, 'level.jsonl'), text.join('\n'));
 
-  it('an intact file: exit 0 and one line with the last hash', () => {
-    const run = runExine(['verify', 'level.jsonl'], crafted());
+  it('an intact file: exit 0 and one line with the last hash', async () => {
+    const run = await runExine(['verify', 'level.jsonl'], crafted());
     expect(run.code).toBe(0);
     expect(run.stdout).toMatch(/^level\.jsonl: intact, \d+ lines, chain verified, last hash [0-9a-f]{64}\n$/);
   });
@@ -120,20 +127,20 @@ describe('exine verify', () => {
     ['a deleted line', (t: string[]) => { t.splice(5, 1); }, /line 6 has seq 7 where 6 was expected/],
     ['two swapped lines', (t: string[]) => { [t[5], t[6]] = [t[6]!, t[5]!]; }, /line 6 has seq 7 where 6 was expected/],
     ['a truncated file', (t: string[]) => { t.splice(40); t[39] = t[39]!.slice(0, 30); }, /line 40 is incomplete/],
-  ])('%s: exit 1, naming the first bad line', (_what, edit, message) => {
+  ])('%s: exit 1, naming the first bad line', async (_what, edit, message) => {
     const dir = crafted();
     const text = lines(dir);
     edit(text);
     write(dir, text);
-    const run = runExine(['verify', 'level.jsonl'], dir);
+    const run = await runExine(['verify', 'level.jsonl'], dir);
     expect(run.code).toBe(1);
     expect(oneLine(run)).toMatch(message);
   });
 
-  it('a clock that ran backwards is a warning, not a failure', () => {
+  it('a clock that ran backwards is a warning, not a failure', async () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'level.jsonl'), timedSessionText([[openPayload(), 0], [{ type: 'sitting', sitting: 1 }, s(100)], [grain('Alnus'), s(50)]]));
-    const run = runExine(['verify', 'level.jsonl'], dir);
+    const run = await runExine(['verify', 'level.jsonl'], dir);
     expect(run.code).toBe(0);
     expect(run.stderr).toMatch(/warning: line 3: time .* is earlier than the line before/);
     expect(run.stdout).toMatch(/intact/);

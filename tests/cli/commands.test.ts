@@ -2,7 +2,7 @@ import { copyFileSync, readdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
-import { runExine } from '../helpers/run-exine.js';
+import { oneLine, runExine, spawnExine } from '../helpers/run-exine.js';
 import { tempDir } from '../helpers/temp-dir.js';
 
 const DEMO = join(import.meta.dirname, '../../demo-sessions');
@@ -14,23 +14,23 @@ function demoCopy() {
 }
 
 describe('the read-only commands on the demo core', () => {
-  it('verify: every demo level is intact; an edit is caught with its line number', () => {
+  it('verify: every demo level is intact; an edit is caught with its line number', async () => {
     const dir = demoCopy();
     for (const f of readdirSync(dir)) {
-      const run = runExine(['verify', f], dir);
+      const run = await runExine(['verify', f], dir);
       expect(run.code, f).toBe(0);
       expect(run.stdout).toMatch(/intact, \d+ lines, chain verified/);
     }
     const text = readFileSync(join(dir, 'km1-060cm.jsonl'), 'utf8').split('\n');
     text[40] = (text[40] as string).replace(/"traverse":(\d+)/, (_, n) => `"traverse":${Number(n) + 1}`);
     writeFileSync(join(dir, 'km1-060cm.jsonl'), text.join('\n'));
-    const run = runExine(['verify', 'km1-060cm.jsonl'], dir);
+    const run = await runExine(['verify', 'km1-060cm.jsonl'], dir);
     expect(run.code).toBe(1);
     expect(run.stderr).toMatch(/km1-060cm\.jsonl: line 41 does not match its hash.*\(40 lines before it are intact\)/);
   });
 
-  it('summary --json gives the pollen sum and each taxon with its interval', () => {
-    const run = runExine(['summary', 'km1-084cm.jsonl', '--json'], demoCopy());
+  it('summary --json gives the pollen sum and each taxon with its interval', async () => {
+    const run = await runExine(['summary', 'km1-084cm.jsonl', '--json'], demoCopy());
     expect(run.code).toBe(0);
     const s = JSON.parse(run.stdout);
     expect(s.pollenSum).toBeGreaterThan(200);
@@ -40,8 +40,8 @@ describe('the read-only commands on the demo core', () => {
     expect(corylus.ciLow).toBeLessThan(corylus.percent);
   });
 
-  it('summary as text: header, progress, group totals (outside the sum starred) and the taxa', () => {
-    const run = runExine(['summary', 'km1-084cm.jsonl'], demoCopy());
+  it('summary as text: header, progress, group totals (outside the sum starred) and the taxa', async () => {
+    const run = await runExine(['summary', 'km1-084cm.jsonl'], demoCopy());
     expect(run.code).toBe(0);
     expect(run.stdout).toMatch(/^Kestrel Mere KM-1 · level KM1-84 \(depth 84\)/);
     expect(run.stdout).toMatch(/not finished yet/);
@@ -54,9 +54,9 @@ describe('the read-only commands on the demo core', () => {
     expect(run.stdout).toMatch(/Corylus\s+shrubs\s+65\s+27\.5\s+22\.2–33\.6\s+21\.9–33\.7/);
   });
 
-  it('export --format wide: one row per level in depth order, one column per taxon', () => {
+  it('export --format wide: one row per level in depth order, one column per taxon', async () => {
     const dir = demoCopy();
-    const run = runExine(['export', ...readdirSync(dir).reverse(), '--format', 'wide'], dir);
+    const run = await runExine(['export', ...readdirSync(dir).reverse(), '--format', 'wide'], dir);
     expect(run.code).toBe(0);
     const rows = parse(run.stdout, { columns: true }) as Record<string, string>[];
     expect(rows.map((r) => r.depth)).toEqual(['12', '36', '60', '84', '108']);
@@ -69,19 +69,36 @@ describe('the read-only commands on the demo core', () => {
     expect(Number(rows[0]!.influx)).toBeCloseTo(Number(rows[0]!.concentration) * 0.05, 1);
   });
 
-  it('keys draws the layout of a bundled keymap', () => {
-    const run = runExine(['keys', 'keypad']);
+  it('keys draws the layout of a bundled keymap', async () => {
+    const run = await runExine(['keys', 'keypad']);
     expect(run.code).toBe(0);
     expect(run.stdout).toMatch(/laid out on the numeric keypad/);
     expect(run.stdout).toMatch(/7 T\s+8 T\s+9 T\s+\+/);
   });
 
-  it('help for every command, exit 0', () => {
+  it('help for every command, exit 0', async () => {
     for (const c of ['count', 'demo', 'summary', 'export', 'verify', 'keys']) {
-      const run = runExine([c, '--help']);
+      const run = await runExine([c, '--help']);
       expect(run.code, c).toBe(0);
       expect(run.stdout).toMatch(/^Usage/);
     }
-    expect(runExine(['--help']).stdout).toMatch(/Commands/);
+    expect((await runExine(['--help'])).stdout).toMatch(/Commands/);
+  });
+});
+
+describe('the real program, bin/exine.js', () => {
+  // The other CLI tests call main() in-process: here the launcher and a real process give the same.
+  it.each([
+    [['keys', 'keypad'], 0],
+    // Without a terminal: in-process the test says there is none; here the process finds none.
+    [['count', 'new.jsonl'], 1],
+    [['count', 'new.jsonl', '--traget', '300'], 2],
+  ])('exine %j: exit %i, with the output of main() in-process', async (args, code) => {
+    const dir = tempDir();
+    const real = spawnExine(args, dir);
+    expect(real.code).toBe(code);
+    if (code !== 0) expect(oneLine(real)).toMatch(/^exine/);
+    expect(await runExine(args, dir)).toEqual(real);
+    expect(readdirSync(dir)).toEqual([]);
   });
 });

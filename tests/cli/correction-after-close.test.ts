@@ -29,10 +29,10 @@ describe('a correction that changes the rule verdict, through the real program',
     const types = scanLog(readFileSync(join(dir, 'l.jsonl'))).events.map((e) => e.type);
     expect(types.slice(-3)).toEqual(['close', 'void', 'rules-unmet']);
 
-    const verify = runExine(['verify', 'l.jsonl'], dir);
+    const verify = await runExine(['verify', 'l.jsonl'], dir);
     expect(verify.code).toBe(0);
     expect(verify.stdout).not.toMatch(/not closed cleanly/);
-    expect(runExine(['audit', 'l.jsonl', '--plain'], dir).stdout).not.toMatch(/not closed cleanly/);
+    expect((await runExine(['audit', 'l.jsonl', '--plain'], dir)).stdout).not.toMatch(/not closed cleanly/);
 
     const again = startInPty(['count', 'l.jsonl'], dir);
     await again.ready(/Pollen sum 2 \/ 3/);

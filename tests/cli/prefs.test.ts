@@ -10,22 +10,22 @@ import { tempDir } from '../helpers/temp-dir.js';
 const env = () => ({ EXINE_CONFIG_DIR: tempDir() });
 
 describe('exine prefs', () => {
-  it('shows the defaults, sets and unsets values, in an isolated config folder', () => {
+  it('shows the defaults, sets and unsets values, in an isolated config folder', async () => {
     const e = env();
-    const shown = runExine(['prefs'], undefined, e);
+    const shown = await runExine(['prefs'], undefined, e);
     expect(shown.code).toBe(0);
     expect(shown.stdout).toMatch(/^bell\s+on\s+default/m);
     expect(shown.stdout).toMatch(/^break\s+50\s+default/m);
     expect(shown.stdout).toMatch(new RegExp(`stored in ${e.EXINE_CONFIG_DIR}/config\\.json`));
-    expect(runExine(['prefs', 'set', 'break', 'off'], undefined, e).stdout).toBe('break = off\n');
-    expect(runExine(['prefs', 'set', 'analyst', 'R.', 'Fern'], undefined, e).stdout).toBe('analyst = R. Fern\n');
-    expect(runExine(['prefs', 'set', 'rare', '3'], undefined, e).code).toBe(0);
-    const again = runExine(['prefs'], undefined, e).stdout;
+    expect((await runExine(['prefs', 'set', 'break', 'off'], undefined, e)).stdout).toBe('break = off\n');
+    expect((await runExine(['prefs', 'set', 'analyst', 'R.', 'Fern'], undefined, e)).stdout).toBe('analyst = R. Fern\n');
+    expect((await runExine(['prefs', 'set', 'rare', '3'], undefined, e)).code).toBe(0);
+    const again = (await runExine(['prefs'], undefined, e)).stdout;
     expect(again).toMatch(/^break\s+off\s+set/m);
     expect(again).toMatch(/^analyst\s+R\. Fern\s+set/m);
     expect(JSON.parse(readFileSync(join(e.EXINE_CONFIG_DIR, 'config.json'), 'utf8'))).toEqual({ break: null, analyst: 'R. Fern', rare: 3 });
-    runExine(['prefs', 'unset', 'rare'], undefined, e);
-    expect(runExine(['prefs'], undefined, e).stdout).toMatch(/^rare\s+2\s+default/m);
+    await runExine(['prefs', 'unset', 'rare'], undefined, e);
+    expect((await runExine(['prefs'], undefined, e)).stdout).toMatch(/^rare\s+2\s+default/m);
   });
 
   it.each([
@@ -33,33 +33,33 @@ describe('exine prefs', () => {
     [['prefs', 'set', 'rare', '0'], /rare must be a whole number from 1 to 100/],
     [['prefs', 'set', 'colour', 'red'], /unknown preference "colour" \(one of bell, rare, break, keymap, analyst\)/],
     [['prefs', 'frobnicate'], /unknown action "frobnicate"/],
-  ])('exine %j is a usage error, and nothing is stored', (args, message) => {
+  ])('exine %j is a usage error, and nothing is stored', async (args, message) => {
     const e = env();
-    const run = runExine(args, undefined, e);
+    const run = await runExine(args, undefined, e);
     expect(run.code).toBe(2);
     expect(oneLine(run)).toMatch(message);
     expect(existsSync(join(e.EXINE_CONFIG_DIR, 'config.json'))).toBe(false);
   });
 
-  it('a hand-edited file with a bad value is refused, never cleared', () => {
+  it('a hand-edited file with a bad value is refused, never cleared', async () => {
     const e = env();
     writeFileSync(join(e.EXINE_CONFIG_DIR, 'config.json'), '{"rare": "many"}');
-    const run = runExine(['prefs'], undefined, e);
+    const run = await runExine(['prefs'], undefined, e);
     expect(run.code).toBe(1);
     expect(oneLine(run)).toMatch(/preferences cannot be read: .*fix or delete the file/);
     expect(readFileSync(join(e.EXINE_CONFIG_DIR, 'config.json'), 'utf8')).toBe('{"rare": "many"}');
   });
 
-  it('a keymap preference is checked when set and kept as an absolute path', () => {
+  it('a keymap preference is checked when set and kept as an absolute path', async () => {
     const e = env();
     const dir = tempDir();
     writeFileSync(join(dir, 'mine.json'), '{"name":"Mine","keys":{"q":{"taxon":"Quercus","group":"trees"}}}');
-    const run = runExine(['prefs', 'set', 'keymap', 'mine.json'], dir, e);
+    const run = await runExine(['prefs', 'set', 'keymap', 'mine.json'], dir, e);
     expect(run.stdout).toBe(`keymap = ${join(dir, 'mine.json')}\n`);
-    const missing = runExine(['prefs', 'set', 'keymap', 'nope.json'], dir, e);
+    const missing = await runExine(['prefs', 'set', 'keymap', 'nope.json'], dir, e);
     expect(missing.code).toBe(1);
     expect(oneLine(missing)).toMatch(/keymap nope\.json: no such file/);
-    expect(runExine(['prefs', 'set', 'keymap', 'keypad'], dir, e).stdout).toBe('keymap = keypad\n');
+    expect((await runExine(['prefs', 'set', 'keymap', 'keypad'], dir, e)).stdout).toBe('keymap = keypad\n');
   });
 
   it('flags override preferences, preferences override the defaults', () => {
@@ -71,24 +71,18 @@ describe('exine prefs', () => {
     expect(() => screenOptions(DEFAULT_PREFS, { rare: 'few' })).toThrow(/--rare must be a whole number from 1 to 100/);
   });
 
-  it('the keymap and analyst preferences apply to new levels', () => {
+  it('the keymap and analyst preferences apply to new levels', async () => {
     const e = env();
-    runExine(['prefs', 'set', 'analyst', 'R. Fern'], undefined, e);
-    runExine(['prefs', 'set', 'keymap', 'keypad'], undefined, e);
-    const before = process.env.EXINE_CONFIG_DIR;
-    process.env.EXINE_CONFIG_DIR = e.EXINE_CONFIG_DIR;
-    try {
-      const { prefs } = readPreferences();
-      expect(prefs).toMatchObject({ analyst: 'R. Fern', keymap: 'keypad' });
-      const opened = openForCounting(join(tempDir(), 'new.jsonl'), {}, () => {}, prefs);
-      opened.writer.close();
-      expect([opened.state.header.analyst, opened.state.keymap.name]).toEqual(['R. Fern', 'Upland one-hand keypad']);
-      // A flag wins over the preference.
-      const flagged = openForCounting(join(tempDir(), 'new.jsonl'), { analyst: 'K. Other' }, () => {}, prefs);
-      flagged.writer.close();
-      expect(flagged.state.header.analyst).toBe('K. Other');
-    } finally {
-      process.env.EXINE_CONFIG_DIR = before;
-    }
+    await runExine(['prefs', 'set', 'analyst', 'R. Fern'], undefined, e);
+    await runExine(['prefs', 'set', 'keymap', 'keypad'], undefined, e);
+    const { prefs } = readPreferences(e);
+    expect(prefs).toMatchObject({ analyst: 'R. Fern', keymap: 'keypad' });
+    const opened = openForCounting(join(tempDir(), 'new.jsonl'), {}, () => {}, prefs);
+    opened.writer.close();
+    expect([opened.state.header.analyst, opened.state.keymap.name]).toEqual(['R. Fern', 'Upland one-hand keypad']);
+    // A flag wins over the preference.
+    const flagged = openForCounting(join(tempDir(), 'new.jsonl'), { analyst: 'K. Other' }, () => {}, prefs);
+    flagged.writer.close();
+    expect(flagged.state.header.analyst).toBe('K. Other');
   });
 });

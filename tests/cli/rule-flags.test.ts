@@ -64,9 +64,9 @@ describe('stop-rule flags', () => {
     [['--tablets', '2', '--per-tablet', '20000', '--volume', '1', '--mass', '2'], /give --volume \(cm³\) or --mass \(g\), not both/],
     [['--per-tablet-sd', '-1', '--tablets', '1', '--per-tablet', '5', '--volume', '1'], /option '--per-tablet-sd' needs a value \(a value starting with "-" is written --flag=-1\)/],
     [['--per-tablet-sd=-1', '--tablets', '1', '--per-tablet', '5', '--volume', '1'], /--per-tablet-sd must be a number of 0 or more, not "-1"/],
-  ])('exine count %j is a usage error that names the flag, and creates nothing', (flags, message) => {
+  ])('exine count %j is a usage error that names the flag, and creates nothing', async (flags, message) => {
     const dir = tempDir();
-    const run = runExine(['count', 'new.jsonl', ...flags], dir);
+    const run = await runExine(['count', 'new.jsonl', ...flags], dir);
     expect(run.code).toBe(2);
     expect(oneLine(run)).toMatch(message);
     expect(existsSync(join(dir, 'new.jsonl'))).toBe(false);

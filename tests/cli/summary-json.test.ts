@@ -19,8 +19,8 @@ describe('exine summary --json on data laid out as the published examples', () =
   const girdled = () =>
     levelFile(sessionText([openPayload(keymapOf(26), { rules: { ...NO_RULES, coverage: 0.95, targetSum: 200, mode: 'any' } }), ...grainsFor(GIRDLED)]));
 
-  it('rarefaction, coverage and Chao1 agree with vegan and iNEXT on the spider data, stand Girdled', () => {
-    const run = runExine(['summary', 'level.jsonl', '--json', '--rarefy', '10', '--rarefy', '50', '--rarefy', '100'], girdled());
+  it('rarefaction, coverage and Chao1 agree with vegan and iNEXT on the spider data, stand Girdled', async () => {
+    const run = await runExine(['summary', 'level.jsonl', '--json', '--rarefy', '10', '--rarefy', '50', '--rarefy', '100'], girdled());
     expect(run.code).toBe(0);
     const s = JSON.parse(run.stdout);
     expect([s.pollenSum, s.types]).toEqual([168, 26]);
@@ -44,8 +44,8 @@ describe('exine summary --json on data laid out as the published examples', () =
     expect(s.concentration).toBeNull();
   });
 
-  it('reports each rule with value, target, met and grains needed, and the set', () => {
-    const s = JSON.parse(runExine(['summary', 'level.jsonl', '--json'], girdled()).stdout);
+  it('reports each rule with value, target, met and grains needed, and the set', async () => {
+    const s = JSON.parse((await runExine(['summary', 'level.jsonl', '--json'], girdled())).stdout);
     expect(s.rules.map((r: { rule: string }) => r.rule)).toEqual(['target', 'coverage']);
     expect(s.rules[0]).toMatchObject({ met: false, value: 168, target: 200, grainsNeeded: 32 });
     expect(s.rules[1]).toMatchObject({ met: false, target: 0.95 });
@@ -64,8 +64,8 @@ describe('exine summary --json on data laid out as the published examples', () =
     expect(t06.simultaneousHigh - t06.simultaneousLow).toBeGreaterThan(1.5 * (t06.ciHigh - t06.ciLow));
   });
 
-  it('a rarefaction size above the sum gives null, not a made-up number', () => {
-    const s = JSON.parse(runExine(['summary', 'level.jsonl', '--json', '--rarefy', '500'], girdled()).stdout);
+  it('a rarefaction size above the sum gives null, not a made-up number', async () => {
+    const s = JSON.parse((await runExine(['summary', 'level.jsonl', '--json', '--rarefy', '500'], girdled())).stdout);
     expect(s.rarefaction).toEqual([{ n: 500, expected: null, se: null }]);
   });
 
@@ -79,8 +79,8 @@ describe('exine summary --json on data laid out as the published examples', () =
       ]),
     );
 
-  it('concentration, its error, exact interval and influx match the marker worked example', () => {
-    const s = JSON.parse(runExine(['summary', 'level.jsonl', '--json'], spiked()).stdout);
+  it('concentration, its error, exact interval and influx match the marker worked example', async () => {
+    const s = JSON.parse((await runExine(['summary', 'level.jsonl', '--json'], spiked())).stdout);
     expect(s.markers).toBe(80);
     expect(s.concentration.value).toBe(200000);
     expect(s.concentration.unit).toBe('grains/cm3');
@@ -90,14 +90,14 @@ describe('exine summary --json on data laid out as the published examples', () =
     expect(s.concentration.influx).toBe(20000);
   });
 
-  it('the text summary says the same in words', () => {
-    const run = runExine(['summary', 'level.jsonl'], spiked());
+  it('the text summary says the same in words', async () => {
+    const run = await runExine(['summary', 'level.jsonl'], spiked());
     expect(run.stdout).toMatch(/concentration 200000 grains\/cm³ \(±12\.6%, 95% 156968–257564\) from 80 markers · influx 20000 grains\/cm²\/yr/);
     expect(run.stdout).toMatch(/stop rules: pollen sum 500 — not met \(about 100 more grains\)/);
   });
 
-  it('the long export carries exact limits and, with spike data, each taxon’s concentration', () => {
-    const run = runExine(['export', 'level.jsonl'], spiked());
+  it('the long export carries exact limits and, with spike data, each taxon’s concentration', async () => {
+    const run = await runExine(['export', 'level.jsonl'], spiked());
     const rows = parse(run.stdout, { columns: true }) as Record<string, string>[];
     const t01 = rows.find((r) => r.taxon === 'T01')!;
     // 100 of the 400-grain sum with 80 markers: (100/80)·40,000 = 50,000 per cm³.
@@ -110,25 +110,25 @@ describe('exine summary --json on data laid out as the published examples', () =
     const marker = rows.find((r) => r.taxon === 'Marker')!;
     expect(marker.concentration).toBe('');
     // Without spike data the same columns are there, empty.
-    const plain = parse(runExine(['export', 'level.jsonl'], levelFile(sessionText([openPayload(keymapOf(2)), ...grainsFor([3, 4])]))).stdout, { columns: true }) as Record<string, string>[];
+    const plain = parse((await runExine(['export', 'level.jsonl'], levelFile(sessionText([openPayload(keymapOf(2)), ...grainsFor([3, 4])])))).stdout, { columns: true }) as Record<string, string>[];
     expect(plain[0]).toHaveProperty('concentration', '');
     expect(Object.keys(plain[0]!)).toEqual(Object.keys(t01));
   });
 
-  it('a file written in format 1 (target alone, no spike field) reads as format 2', () => {
+  it('a file written in format 1 (target alone, no spike field) reads as format 2', async () => {
     const open = { ...openPayload(keymapOf(2)), format: 1, rules: { targetSum: 300 } } as Record<string, unknown>;
     delete open.spike;
     const dir = levelFile(sessionText([open as never, ...grainsFor([3, 4])]));
-    const s = JSON.parse(runExine(['summary', 'level.jsonl', '--json'], dir).stdout);
+    const s = JSON.parse((await runExine(['summary', 'level.jsonl', '--json'], dir)).stdout);
     expect(s.ruleSet).toBe('pollen sum 300');
     expect(s.rules).toEqual([{ rule: 'target', label: 'pollen sum', value: 7, target: 300, met: false, grainsNeeded: 293, note: null }]);
     expect(s.spike).toBeNull();
-    expect(runExine(['verify', 'level.jsonl'], dir).code).toBe(0);
+    expect((await runExine(['verify', 'level.jsonl'], dir)).code).toBe(0);
   });
 
-  it('a note that looks like a spreadsheet formula is exported as text, not run', () => {
+  it('a note that looks like a spreadsheet formula is exported as text, not run', async () => {
     const dir = levelFile(sessionText([openPayload(keymapOf(2)), ...grainsFor([3]), { type: 'note', text: '=HYPERLINK("http://x","y")', grain: 2, stage: null }]));
-    const rows = parse(runExine(['export', 'level.jsonl', '--format', 'notes'], dir).stdout, { columns: true }) as Record<string, string>[];
+    const rows = parse((await runExine(['export', 'level.jsonl', '--format', 'notes'], dir)).stdout, { columns: true }) as Record<string, string>[];
     expect(rows[0]!.text).toBe(`'=HYPERLINK("http://x","y")`);
     expect(rows[0]).toMatchObject({ taxon: 'T01', grain_seq: '2', stage_x: '' });
   });

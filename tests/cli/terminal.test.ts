@@ -1,17 +1,16 @@
 import { readdirSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { isProcessRunning } from '../../src/io/process-info.js';
 import { scanLog } from '../../src/log/scan-log.js';
 import { readLevel, resumeLevel } from '../../src/session/session-files.js';
+import { demoFolder } from '../../src/demo/demo-copy.js';
 import { startInPty } from '../helpers/pty.js';
 import { tempDir } from '../helpers/temp-dir.js';
+import { until } from '../helpers/until.js';
 
 /** SIGKILL is delivered asynchronously: wait until the process is gone (or a zombie) before reading its file. */
-async function untilDead(pid: number) {
-  for (let i = 0; i < 200 && isProcessRunning(pid); i++) await new Promise((r) => setTimeout(r, 10));
-  expect(isProcessRunning(pid)).toBe(false);
-}
+const untilDead = (pid: number) => until(() => expect(isProcessRunning(pid)).toBe(false));
 
 // End-to-end: the real program in a real pseudo-terminal, keys typed as bursts.
 describe('exine count in a terminal', () => {
@@ -136,17 +135,21 @@ describe('exine count in a terminal', () => {
 });
 
 describe('exine demo in a terminal', () => {
-  it('opens a copy of the half-counted demo level and leaves the bundled file alone', async () => {
+  it('opens a fresh copy of the half-counted demo level in the temp folder, says where, and leaves the bundled file alone', async () => {
     const bundled = join(import.meta.dirname, '../../demo-sessions/km1-084cm.jsonl');
     const before = readFileSync(bundled);
-    const t = startInPty(['demo'], tempDir());
+    const tmp = tempDir();
+    const t = startInPty(['demo'], tempDir(), { env: { TMPDIR: tmp } });
     await t.ready(/Kestrel Mere KM-1 · level KM1-84/);
     const sum = Number(/Pollen sum (\d+)/.exec(t.output())?.[1]);
     t.type('cc');
     await t.waitFor(new RegExp(`Pollen sum ${sum + 2}\\b`));
     t.type('\x03');
     expect(await t.exited()).toBe(0);
-    expect(t.output()).toMatch(/the demo copy stays in .*km1-084cm\.jsonl/);
+    const copy = join(demoFolder(tmp), 'km1-084cm.jsonl');
+    expect(t.output()).toMatch(`the demo copy is ${copy}; the next exine demo starts afresh`);
+    expect(readdirSync(tmp)).toEqual([basename(demoFolder(tmp))]);
+    expect(readLevel(copy).state.grains).toBe(readLevel(bundled).state.grains + 2);
     expect(readFileSync(bundled).equals(before)).toBe(true);
   });
 });

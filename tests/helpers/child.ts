@@ -8,8 +8,8 @@ export interface Child {
   readonly proc: ChildProcessWithoutNullStreams;
   stdout(): string;
   stderr(): string;
-  /** Resolves once stdout matches. */
-  waitFor(pattern: RegExp, timeoutMs?: number): Promise<void>;
+  /** Resolves once stdout matches (a pattern, or a test of the whole output). */
+  waitFor(pattern: RegExp | ((stdout: string) => boolean), timeoutMs?: number): Promise<void>;
   exited(): Promise<number | null>;
 }
 
@@ -36,7 +36,7 @@ export function startChild(args: string[], env: NodeJS.ProcessEnv = {}): Child {
       new Promise((resolve, reject) => {
         const timer = setTimeout(() => reject(new Error(`timed out waiting for ${pattern}; stdout: ${out.slice(-300)} stderr: ${err}`)), timeoutMs);
         const check = () => {
-          if (pattern.test(out)) {
+          if (typeof pattern === 'function' ? pattern(out) : pattern.test(out)) {
             clearTimeout(timer);
             resolve();
           }

@@ -1,6 +1,9 @@
-import { mkdtempSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { afterAll } from 'vitest';
 
-// No test reads or writes the real user's preferences: every worker, and every child it starts, uses its own folder.
-process.env.EXINE_CONFIG_DIR = mkdtempSync(join(tmpdir(), 'exine-config-'));
+// No test reads or writes the real user's preferences: every test file, and every child it starts, uses its own folder.
+const dir = mkdtempSync(join(tmpdir(), 'exine-config-'));
+process.env.EXINE_CONFIG_DIR = dir;
+afterAll(() => rmSync(dir, { recursive: true, force: true }));

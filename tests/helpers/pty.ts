@@ -1,5 +1,6 @@
-import { spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { execFileSync, spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
+import { readFileSync, readlinkSync } from 'node:fs';
+import { vi } from 'vitest';
 import { EXINE_BIN } from './child.js';
 
 /** Strip terminal control sequences so the screen text can be matched. */
@@ -10,19 +11,18 @@ export interface Pty {
   output(): string;
   type(keys: string): void;
   waitFor(pattern: RegExp, timeoutMs?: number): Promise<void>;
-  /** Wait for the first frame, then a moment for Ink to switch the terminal to raw mode. */
+  /** Wait for the first frame, then until Ink has switched the terminal to raw mode (keys typed before would wait in its line buffer). */
   ready(pattern: RegExp): Promise<void>;
   exited(): Promise<number | null>;
   /** pid of exine itself (the program inside the terminal). */
   programPid(): number;
 }
 
-/** Run exine in a real pseudo-terminal of 80x24, via util-linux `script`. */
-export function startInPty(args: string[], cwd: string, columns = 80, rows = 24): Pty {
+/** Run exine in a real pseudo-terminal of 80x24, via util-linux `script`; `env` goes on top of this process's. */
+export function startInPty(args: string[], cwd: string, { columns = 80, rows = 24, env = {} as NodeJS.ProcessEnv } = {}): Pty {
   const command = `stty cols ${columns} rows ${rows}; exec ${JSON.stringify(process.execPath)} ${JSON.stringify(EXINE_BIN)} ${args.map((a) => JSON.stringify(a)).join(' ')}`;
   // CI=true as on CI machines and some lab images: the screen must draw live all the same.
-  const env = { ...process.env, TERM: 'xterm-256color', CI: 'true' };
-  const proc = spawn('script', ['-qfec', command, '/dev/null'], { cwd, stdio: 'pipe', env });
+  const proc = spawn('script', ['-qfec', command, '/dev/null'], { cwd, stdio: 'pipe', env: { ...process.env, TERM: 'xterm-256color', CI: 'true', ...env } });
   // Keys may still be on their way when a test kills the process: a closed pipe is expected then.
   proc.stdin.on('error', () => {});
   let out = '';
@@ -56,7 +56,13 @@ export function startInPty(args: string[], cwd: string, columns = 80, rows = 24)
       }),
     ready: async (pattern) => {
       await pty.waitFor(pattern);
-      await new Promise((r) => setTimeout(r, 300));
+      const tty = readlinkSync(`/proc/${pty.programPid()}/fd/0`);
+      await vi.waitFor(
+        () => {
+          if (!/(^|\s)-icanon\b/.test(execFileSync('stty', ['-a', '-F', tty], { encoding: 'utf8' }))) throw new Error(`${tty} never left line mode`);
+        },
+        { timeout: 15_000, interval: 10 },
+      );
     },
     exited: () => exit,
     programPid: () => {

@@ -1,17 +1,12 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterEach } from 'vitest';
+import { onTestFinished } from 'vitest';
 
-const made: string[] = [];
-
-/** A fresh real folder, removed after the test. */
+/** A fresh real folder, removed when the test that asked for it ends. */
 export function tempDir(): string {
   const dir = mkdtempSync(join(tmpdir(), 'exine-test-'));
-  made.push(dir);
+  // Tied to the test, not to a file-level hook: test files share one module cache (isolate: false).
+  onTestFinished(() => rmSync(dir, { recursive: true, force: true }));
   return dir;
 }
-
-afterEach(() => {
-  while (made.length) rmSync(made.pop() as string, { recursive: true, force: true });
-});

@@ -34,20 +34,20 @@ describe('adding the types of a count to a keymap file', () => {
     });
   });
 
-  it('exine keys --add-types writes a copy of a keymap, never a bundled one', () => {
+  it('exine keys --add-types writes a copy of a keymap, never a bundled one', async () => {
     const dir = tempDir();
     const demo = join(dir, 'km1-084cm.jsonl');
     copyFileSync(new URL('../../demo-sessions/km1-084cm.jsonl', import.meta.url), demo);
-    const bundled = runExine(['keys', 'temperate-lowland', '--add-types', demo], dir);
+    const bundled = await runExine(['keys', 'temperate-lowland', '--add-types', demo], dir);
     expect(bundled.code).toBe(2);
     expect(oneLine(bundled)).toMatch(/temperate-lowland is a bundled keymap and is never changed; copy it/);
     copyFileSync(new URL('../../keymaps/temperate-lowland.json', import.meta.url), join(dir, 'mine.json'));
-    const run = runExine(['keys', 'mine.json', '--add-types', demo], dir);
+    const run = await runExine(['keys', 'mine.json', '--add-types', demo], dir);
     expect(run.code).toBe(0);
     expect(run.stdout).toBe('added Ilex aquifolium (shrubs) on key A\nmine.json: 1 type added\n');
     expect(readFileSync(join(dir, 'mine.json'), 'utf8')).toMatch(/"A": \{ "taxon": "Ilex aquifolium", "group": "shrubs" \}/);
-    expect(runExine(['keys', 'mine.json'], dir).stdout).toMatch(/Ilex/);
+    expect((await runExine(['keys', 'mine.json'], dir)).stdout).toMatch(/Ilex/);
     // A second time there is nothing to add.
-    expect(runExine(['keys', 'mine.json', '--add-types', demo], dir).stdout).toMatch(/Ilex aquifolium is in mine\.json already\nmine\.json: 0 types added/);
+    expect((await runExine(['keys', 'mine.json', '--add-types', demo], dir)).stdout).toMatch(/Ilex aquifolium is in mine\.json already\nmine\.json: 0 types added/);
   });
 });

@@ -26,7 +26,8 @@ const acts = (frame: string) => /\x1b\]|\x1b\[2J|\x07/.test(frame);
 
 describe('a level from elsewhere with control characters in its names', () => {
   it('is read, and the counting screen shows them as visible escapes, never as terminal commands', async () => {
-    const s = await countScreen(resumeLevel(hostileLevel()));
+    const path = hostileLevel();
+    const s = await countScreen({ ...resumeLevel(path), path });
     await s.type('a');
     await expect.poll(() => s.session.getSnapshot().state.grains).toBe(2);
     const frame = s.frame();

@@ -25,7 +25,7 @@ function counted(targetSum = 500) {
 const lines = (path: string) => readFileSync(path, 'utf8').trimEnd().split('\n');
 
 describe('corrections: void and restore', () => {
-  it('voids one grain: counts, summary and export honour it; the grain stays in the file', () => {
+  it('voids one grain: counts, summary and export honour it; the grain stays in the file', async () => {
     const path = counted();
     const before = lines(path);
     const state = correctLevel(path, { type: 'void', grain: 4, traverse: null, reason: 'double press' });
@@ -35,13 +35,13 @@ describe('corrections: void and restore', () => {
     expect(after.slice(0, before.length)).toEqual(before);
     expect(JSON.parse(after.at(-1)!)).toMatchObject({ type: 'void', grain: 4, traverse: null, reason: 'double press' });
     expect(readLevel(path).state.counts.Alnus).toBe(1);
-    const summary = JSON.parse(runExine(['summary', path, '--json']).stdout);
+    const summary = JSON.parse((await runExine(['summary', path, '--json'])).stdout);
     expect(summary.pollenSum).toBe(5);
     expect(summary.voided).toBe(1);
-    expect(runExine(['summary', path]).stdout).toMatch(/pollen sum 5 · 5 grains · .* · 1 grain voided in the audit\n/);
-    const rows = parse(runExine(['export', path]).stdout, { columns: true }) as Record<string, string>[];
+    expect((await runExine(['summary', path])).stdout).toMatch(/pollen sum 5 · 5 grains · .* · 1 grain voided in the audit\n/);
+    const rows = parse((await runExine(['export', path])).stdout, { columns: true }) as Record<string, string>[];
     expect(rows.find((r) => r.taxon === 'Alnus')!.count).toBe('1');
-    expect(runExine(['verify', path]).code).toBe(0);
+    expect((await runExine(['verify', path])).code).toBe(0);
   });
 
   it('voids a whole traverse and restores it', () => {

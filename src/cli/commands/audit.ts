@@ -4,6 +4,7 @@ import { plainReport } from '../../audit/plain-report.js';
 import { readForAudit } from '../../audit/read-audit.js';
 import { UsageError } from '../../errors.js';
 import { drawLiveOnThisTerminal } from '../interactive-terminal.js';
+import type { Io } from '../io.js';
 import { parseFlags, positiveInteger } from '../parse-flags.js';
 import { requireTerminal } from './count.js';
 
@@ -13,20 +14,20 @@ const OPTIONS = {
   gap: { type: 'string' },
 } as const;
 
-export async function auditCommand(args: string[]): Promise<number> {
+export async function auditCommand(args: string[], io: Io): Promise<number> {
   const { values, positionals } = parseFlags('audit', args, OPTIONS);
   if (positionals.length !== 1) throw new UsageError('exine audit: give one session FILE (see exine audit --help)');
-  const path = resolve(positionals[0] as string);
+  const path = resolve(io.cwd, positionals[0] as string);
   const options: AuditOptions = {
     doublePressMs: positiveInteger('audit', 'double-press', values['double-press']) ?? DEFAULT_DOUBLE_PRESS_MS,
     gapMs: (positiveInteger('audit', 'gap', values.gap) ?? DEFAULT_GAP_MS / 60_000) * 60_000,
   };
   const read = readForAudit(path, options);
   if (values.plain) {
-    process.stdout.write(plainReport(basename(path), read.state, read.audit, read.verdict));
+    io.stdout.write(plainReport(basename(path), read.state, read.audit, read.verdict));
     return 0;
   }
-  requireTerminal('audit');
+  requireTerminal('audit', io);
   drawLiveOnThisTerminal();
   const { runAuditScreen } = await import('../../screens/run-audit-screen.js');
   return runAuditScreen(path, options);

@@ -11,6 +11,7 @@ import { finiteNumber, parseFlags } from '../parse-flags.js';
 import { RULE_OPTIONS, rulesFromFlags, spikeFromFlags } from '../rule-flags.js';
 import { parsePref, type Preferences } from '../../prefs/pref-values.js';
 import { readPreferences } from '../../prefs/preferences.js';
+import type { Io } from '../io.js';
 
 const OPTIONS = {
   keymap: { type: 'string' },
@@ -48,20 +49,26 @@ function checkAgainstRecorded(path: string, state: LevelState, given: Partial<Le
   }
 }
 
-export function requireTerminal(command: string): void {
-  if (!process.stdin.isTTY || typeof process.stdin.setRawMode !== 'function') {
+export function requireTerminal(command: string, { stdin }: Pick<Io, 'stdin'>): void {
+  if (!stdin.isTTY || typeof stdin.setRawMode !== 'function') {
     throw new ExineError(`exine ${command}: needs an interactive terminal (standard input is not a TTY); run it in a terminal window`);
   }
 }
 
-/** Open or create the level for counting; the caller runs the screen. */
 /** What preferences supply when a flag is not given, for a new level. */
 export interface LevelDefaults {
   readonly keymap?: string;
   readonly analyst?: string | null;
 }
 
-export function openForCounting(path: string, flags: Record<string, string | undefined>, check: () => void = () => {}, defaults: LevelDefaults = {}): OpenedLevel {
+/** Open or create the level for counting; the caller runs the screen. A keymap path in `flags` starts from `cwd`. */
+export function openForCounting(
+  path: string,
+  flags: Record<string, string | undefined>,
+  check: () => void = () => {},
+  defaults: LevelDefaults = {},
+  cwd = process.cwd(),
+): OpenedLevel {
   const depth = finiteNumber('count', 'depth', flags.depth);
   const given: Partial<LevelInfo> = {
     level: flags.level,
@@ -72,7 +79,7 @@ export function openForCounting(path: string, flags: Record<string, string | und
     analyst: flags.analyst,
   };
   if (existsSync(path)) {
-    const keymap = flags.keymap ? loadKeymap(flags.keymap).keymap : null;
+    const keymap = flags.keymap ? loadKeymap(flags.keymap, cwd).keymap : null;
     // One read of the file: the checks run on the level as resume reads it, before it writes.
     return resumeLevel(path, {
       beforeWrite: (state) => {
@@ -84,7 +91,7 @@ export function openForCounting(path: string, flags: Record<string, string | und
       },
     });
   }
-  const { keymap } = loadKeymap(flags.keymap ?? defaults.keymap ?? DEFAULT_KEYMAP);
+  const { keymap } = loadKeymap(flags.keymap ?? defaults.keymap ?? DEFAULT_KEYMAP, cwd);
   const info: LevelInfo = {
     level: given.level ?? basename(path, extname(path)),
     depth: depth ?? null,
@@ -117,14 +124,14 @@ export function screenOptions(prefs: Preferences, flags: { quiet?: boolean | und
   return { bell: flags.quiet ? false : prefs.bell, rareThreshold: pick('rare'), breakMinutes: pick('break') };
 }
 
-export async function countCommand(args: string[]): Promise<number> {
+export async function countCommand(args: string[], io: Io): Promise<number> {
   const { values, positionals } = parseFlags('count', args, OPTIONS);
   if (positionals.length !== 1) throw new UsageError('exine count: give one session FILE (see exine count --help)');
-  const path = resolve(positionals[0] as string);
+  const path = resolve(io.cwd, positionals[0] as string);
   const { quiet, rare, break: rest, ...flags } = values;
-  const { prefs } = readPreferences();
+  const { prefs } = readPreferences(io.env);
   const screen = screenOptions(prefs, { quiet, rare, break: rest });
-  const opened = openForCounting(path, flags as Record<string, string | undefined>, () => requireTerminal('count'), prefs);
+  const opened = openForCounting(path, flags as Record<string, string | undefined>, () => requireTerminal('count', io), prefs, io.cwd);
   drawLiveOnThisTerminal();
   const { runCountScreen } = await import('../../screens/run-count-screen.js');
   return runCountScreen(opened, screen);

@@ -1,8 +1,8 @@
-import { copyFileSync, mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { freshDemoCopy } from '../../demo/demo-copy.js';
 import { UsageError } from '../../errors.js';
+import type { Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
 import { drawLiveOnThisTerminal } from '../interactive-terminal.js';
 import { readPreferences } from '../../prefs/preferences.js';
@@ -11,18 +11,16 @@ import { openForCounting, requireTerminal, screenOptions } from './count.js';
 export const DEMO_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../../demo-sessions');
 export const DEMO_LEVEL = 'km1-084cm.jsonl';
 
-export async function demoCommand(args: string[]): Promise<number> {
+export async function demoCommand(args: string[], io: Io): Promise<number> {
   const { positionals } = parseFlags('demo', args, {});
   if (positionals.length) throw new UsageError('exine demo: takes no arguments (see exine demo --help)');
-  requireTerminal('demo');
-  const dir = mkdtempSync(join(tmpdir(), 'exine-demo-'));
-  const copy = join(dir, DEMO_LEVEL);
-  copyFileSync(join(DEMO_DIR, DEMO_LEVEL), copy);
-  const { prefs } = readPreferences();
+  requireTerminal('demo', io);
+  const { prefs } = readPreferences(io.env);
+  const copy = freshDemoCopy(join(DEMO_DIR, DEMO_LEVEL));
   const opened = openForCounting(copy, {});
   drawLiveOnThisTerminal();
   const { runCountScreen } = await import('../../screens/run-count-screen.js');
   const code = await runCountScreen(opened, screenOptions(prefs, {}));
-  process.stdout.write(`the demo copy stays in ${copy} (the bundled demo is unchanged)\n`);
+  io.stdout.write(`the demo copy is ${copy}; the next exine demo starts afresh (the bundled demo is unchanged)\n`);
   return code;
 }

@@ -6,6 +6,7 @@ import { LONG_COLUMNS, longRows, NOTE_COLUMNS, noteRows, orderLevels, wideTable,
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { plural } from '../../text/cells.js';
 import { readLevel } from '../../session/session-files.js';
+import type { Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -14,17 +15,17 @@ const OPTIONS = {
   force: { type: 'boolean', default: false },
 } as const;
 
-export function exportCommand(args: string[]): number {
+export function exportCommand(args: string[], io: Io): number {
   const { values, positionals } = parseFlags('export', args, OPTIONS);
   if (positionals.length === 0) throw new UsageError('exine export: give at least one session FILE (see exine export --help)');
   if (values.format !== 'long' && values.format !== 'wide' && values.format !== 'notes') {
     throw new UsageError(`exine export: --format must be long, wide or notes, not "${values.format}"`);
   }
-  const out = values.out === undefined ? null : resolve(values.out);
+  const out = values.out === undefined ? null : resolve(io.cwd, values.out);
   if (out && existsSync(out) && !values.force) throw new ExineError(`${values.out} already exists; add --force to replace it`);
   const levels: ExportLevel[] = positionals.map((file) => {
-    const { state, warnings } = readLevel(resolve(file));
-    for (const w of warnings) process.stderr.write(`exine: ${w}\n`);
+    const { state, warnings } = readLevel(resolve(io.cwd, file));
+    for (const w of warnings) io.stderr.write(`exine: ${w}\n`);
     return { state, source: basename(file) };
   });
   const csv =
@@ -35,7 +36,7 @@ export function exportCommand(args: string[]): number {
         : toCsv(LONG_COLUMNS, longRows(orderLevels(levels)));
   if (out) {
     writeFileAtomic(out, csv, values.force === true);
-    process.stderr.write(`exine: wrote ${plural(levels.length, 'level')} to ${values.out}\n`);
-  } else process.stdout.write(csv);
+    io.stderr.write(`exine: wrote ${plural(levels.length, 'level')} to ${values.out}\n`);
+  } else io.stdout.write(csv);
   return 0;
 }

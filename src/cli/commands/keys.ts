@@ -6,37 +6,38 @@ import { addTypesToKeymap, type AddedType } from '../../keymap/add-types.js';
 import { drawLayout } from '../../keymap/draw-layout.js';
 import { isBundledKeymap, loadKeymap, resolveKeymapPath } from '../../keymap/load-keymap.js';
 import { plural } from '../../text/cells.js';
+import type { Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
 
 /** The types a session added while counting, with the keys they got there. */
-async function addedTypesOf(sessionPath: string): Promise<AddedType[]> {
+async function addedTypesOf(sessionPath: string, cwd: string): Promise<AddedType[]> {
   // Loaded only here: drawing a keymap needs none of the session code.
   const { readLevel } = await import('../../session/session-files.js');
-  const { state } = readLevel(resolve(sessionPath));
+  const { state } = readLevel(resolve(cwd, sessionPath));
   return state.addedTypes.map((taxon) => {
     const [key, binding] = Object.entries(state.keymap.keys).find(([, b]) => b.taxon === taxon) as [string, { group: AddedType['group'] }];
     return { key, taxon, group: binding.group };
   });
 }
 
-export async function keysCommand(args: string[]): Promise<number> {
+export async function keysCommand(args: string[], io: Io): Promise<number> {
   const { values, positionals } = parseFlags('keys', args, { 'add-types': { type: 'string' } });
   if (positionals.length !== 1) throw new UsageError('exine keys: give one keymap PATH or bundled NAME (see exine keys --help)');
   const name = positionals[0] as string;
   const from = values['add-types'];
   if (from === undefined) {
-    const { keymap } = loadKeymap(name);
-    process.stdout.write(`${drawLayout(keymap)}\n`);
+    const { keymap } = loadKeymap(name, io.cwd);
+    io.stdout.write(`${drawLayout(keymap)}\n`);
     return 0;
   }
-  const path = resolveKeymapPath(name);
+  const path = resolveKeymapPath(name, io.cwd);
   if (isBundledKeymap(path)) {
     throw new UsageError(`exine keys: ${name} is a bundled keymap and is never changed; copy it (cp ${path} my-keymap.json) and add the types to the copy`);
   }
-  loadKeymap(name);
-  const types = await addedTypesOf(from);
+  loadKeymap(name, io.cwd);
+  const types = await addedTypesOf(from, io.cwd);
   if (types.length === 0) {
-    process.stdout.write(`${from} added no types while counting; ${name} is unchanged\n`);
+    io.stdout.write(`${from} added no types while counting; ${name} is unchanged\n`);
     return 0;
   }
   const result = addTypesToKeymap(readFileSync(path, 'utf8'), name, types);
@@ -47,6 +48,6 @@ export async function keysCommand(args: string[]): Promise<number> {
     ...result.skipped.map((t) => `${t} is in ${name} already`),
     `${name}: ${plural(result.added.length, 'type')} added`,
   ];
-  process.stdout.write(`${lines.join('\n')}\n`);
+  io.stdout.write(`${lines.join('\n')}\n`);
   return 0;
 }

@@ -3,6 +3,7 @@ import { formatPref, parsePref, PREF_HELP, PREF_NAMES, type PrefName } from '../
 import { clearPreference, readPreferences, writePreference } from '../../prefs/preferences.js';
 import { isBundledKeymap, loadKeymap, resolveKeymapPath } from '../../keymap/load-keymap.js';
 import { fit } from '../../text/cells.js';
+import type { Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
 
 const nameOf = (text: string | undefined): PrefName => {
@@ -10,17 +11,17 @@ const nameOf = (text: string | undefined): PrefName => {
   throw new UsageError(`exine prefs: ${text ? `unknown preference "${text}"` : 'name a preference'} (one of ${PREF_NAMES.join(', ')})`);
 };
 
-export function prefsCommand(args: string[]): number {
+export function prefsCommand(args: string[], io: Io): number {
   const { positionals } = parseFlags('prefs', args, {});
   const [verb, name, ...rest] = positionals;
   if (verb === undefined || verb === 'show') {
-    const { prefs, set, path } = readPreferences();
+    const { prefs, set, path } = readPreferences(io.env);
     const lines = PREF_NAMES.map((n) => `${fit(n, 8)} ${fit(formatPref(n, prefs[n]), 20)} ${set.has(n) ? 'set   ' : 'default'}  ${PREF_HELP[n]}`);
-    process.stdout.write(`${lines.join('\n')}\n(stored in ${path}; flags of exine count override these)\n`);
+    io.stdout.write(`${lines.join('\n')}\n(stored in ${path}; flags of exine count override these)\n`);
     return 0;
   }
   if (verb === 'path') {
-    process.stdout.write(`${readPreferences().path}\n`);
+    io.stdout.write(`${readPreferences(io.env).path}\n`);
     return 0;
   }
   if (verb === 'set') {
@@ -31,18 +32,18 @@ export function prefsCommand(args: string[]): number {
     let value = parsed.value;
     if (pref === 'keymap') {
       // Checked now, and kept as an absolute path: a count started from another folder finds the same file.
-      const path = resolveKeymapPath(value as string);
-      loadKeymap(value as string);
+      const path = resolveKeymapPath(value as string, io.cwd);
+      loadKeymap(value as string, io.cwd);
       value = isBundledKeymap(path) ? (value as string) : path;
     }
-    writePreference(pref, value);
-    process.stdout.write(`${pref} = ${formatPref(pref, value)}\n`);
+    writePreference(pref, value, io.env);
+    io.stdout.write(`${pref} = ${formatPref(pref, value)}\n`);
     return 0;
   }
   if (verb === 'unset') {
     const pref = nameOf(name);
-    clearPreference(pref);
-    process.stdout.write(`${pref} is back to its default\n`);
+    clearPreference(pref, io.env);
+    io.stdout.write(`${pref} is back to its default\n`);
     return 0;
   }
   throw new UsageError(`exine prefs: unknown action "${verb}" (show, set NAME VALUE, unset NAME, path)`);

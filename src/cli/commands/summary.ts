@@ -4,6 +4,7 @@ import { levelSummary, type LevelSummary } from '../../export/level-summary.js';
 import { GROUPS } from '../../keymap/groups.js';
 import { readLevel } from '../../session/session-files.js';
 import { ci, fit, plural, pct, right } from '../../text/cells.js';
+import type { Io } from '../io.js';
 import { parseFlags, positiveInteger } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -76,13 +77,13 @@ function textReport(s: LevelSummary): string[] {
   return lines;
 }
 
-export function summaryCommand(args: string[]): number {
+export function summaryCommand(args: string[], io: Io): number {
   const { values, positionals } = parseFlags('summary', args, OPTIONS);
   if (positionals.length !== 1) throw new UsageError('exine summary: give one session FILE (see exine summary --help)');
   const rarefyAt = (values.rarefy ?? []).map((v) => positiveInteger('summary', 'rarefy', v) as number);
-  const { state, warnings } = readLevel(resolve(positionals[0] as string));
-  for (const w of warnings) process.stderr.write(`exine: ${w}\n`);
+  const { state, warnings } = readLevel(resolve(io.cwd, positionals[0] as string));
+  for (const w of warnings) io.stderr.write(`exine: ${w}\n`);
   const summary = levelSummary(state, rarefyAt);
-  process.stdout.write(values.json ? `${JSON.stringify(summary, null, 2)}\n` : `${textReport(summary).join('\n')}\n`);
+  io.stdout.write(values.json ? `${JSON.stringify(summary, null, 2)}\n` : `${textReport(summary).join('\n')}\n`);
   return 0;
 }
