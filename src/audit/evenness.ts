@@ -1,4 +1,5 @@
-import { chiSquareTest, expectedCountsOk, type ChiSquareResult } from '../stats/homogeneity.js';
+import { chiSquareTest, type ChiSquareResult } from '../stats/homogeneity.js';
+import { Columns } from './column-merging.js';
 
 export const POOLED = 'pooled rare types';
 
@@ -26,71 +27,89 @@ export type Evenness = { readonly ok: true; readonly test: EvennessTest } | { re
 
 interface Row {
   taxon: string;
+  /** By the table's first column index; merged-away columns are left stale. */
   counts: number[];
+  total: number;
   members: string[];
 }
 
 const total = (xs: readonly number[]) => xs.reduce((a, b) => a + b, 0);
 
-function expectedOf(rows: readonly Row[]): number[][] {
-  const n = total(rows.map((r) => total(r.counts)));
-  const cols = (rows[0]?.counts ?? []).map((_, j) => total(rows.map((r) => r.counts[j] ?? 0)));
-  return rows.map((r) => cols.map((c) => (total(r.counts) * c) / n));
+/**
+ * Cochran (1954) judged from the margins: E = R·C/N, so the cells below 5 in a
+ * row are the columns with C·R < 5N, counted from the column totals. Exact in
+ * integers, and the same verdict as expectedCountsOk on the full table.
+ */
+function cochranHolds(rows: readonly Row[], columns: Columns, n: number): boolean {
+  let smallestRow = Infinity;
+  let below5 = 0;
+  for (const r of rows) {
+    smallestRow = Math.min(smallestRow, r.total);
+    below5 += columns.atMost(Math.floor((5 * n - 1) / r.total));
+  }
+  return smallestRow * columns.smallest() >= n && below5 <= 0.2 * rows.length * columns.size;
 }
 
 /**
  * Are the types spread alike across the traverses? A χ² test of homogeneity of
  * the taxa × traverses table. Rare taxa are pooled into one row, then (if still
  * needed) the smallest traverses merged with a neighbour, until Cochran's rule
- * for expected counts holds.
+ * for expected counts holds. Each step works from row and column totals, so a
+ * level of thousands of traverses is judged in O(steps × rows × log N).
  */
 export function evennessAcrossTraverses(counts: ReadonlyMap<string, ReadonlyMap<number, number>>, threshold = 2): Evenness {
   const traverseSet = new Set<number>();
   for (const perTraverse of counts.values()) for (const [t, c] of perTraverse) if (c > 0) traverseSet.add(t);
-  let columns: number[][] = [...traverseSet].sort((a, b) => a - b).map((t) => [t]);
-  if (columns.length < 2) return { ok: false, reason: 'fewer than two traverses with grains: nothing to compare' };
+  const traverses = [...traverseSet].sort((a, b) => a - b);
+  if (traverses.length < 2) return { ok: false, reason: 'fewer than two traverses with grains: nothing to compare' };
   let rows: Row[] = [...counts.entries()]
-    .map(([taxon, per]) => ({ taxon, members: [taxon], counts: columns.map(([t]) => per.get(t as number) ?? 0) }))
-    .filter((r) => total(r.counts) > 0);
+    .map(([taxon, per]) => {
+      const c = traverses.map((t) => per.get(t) ?? 0);
+      return { taxon, members: [taxon], counts: c, total: total(c) };
+    })
+    .filter((r) => r.total > 0);
   if (rows.length < 2) return { ok: false, reason: 'fewer than two types: nothing to compare' };
+  const n = total(rows.map((r) => r.total));
+  const columns = new Columns(traverses, traverses.map((_, j) => total(rows.map((r) => r.counts[j] as number))), n);
   const pooledTaxa: string[] = [];
 
   const poolSmallestRow = () => {
-    const byTotal = [...rows].sort((a, b) => total(a.counts) - total(b.counts));
+    const byTotal = [...rows].sort((a, b) => a.total - b.total);
     const pooled = rows.find((r) => r.taxon === POOLED);
     const smallest = byTotal.find((r) => r.taxon !== POOLED) as Row;
     pooledTaxa.push(...smallest.members);
     if (pooled) {
-      pooled.counts = pooled.counts.map((c, j) => c + (smallest.counts[j] ?? 0));
+      smallest.counts.forEach((c, j) => (pooled.counts[j] = (pooled.counts[j] as number) + c));
+      pooled.total += smallest.total;
       rows = rows.filter((r) => r !== smallest);
     } else {
       const second = byTotal.find((r) => r.taxon !== POOLED && r !== smallest) as Row;
       pooledTaxa.push(...second.members);
-      rows = [...rows.filter((r) => r !== smallest && r !== second), { taxon: POOLED, members: [...smallest.members, ...second.members], counts: smallest.counts.map((c, j) => c + (second.counts[j] ?? 0)) }];
+      const merged = { taxon: POOLED, members: [...smallest.members, ...second.members], counts: smallest.counts.map((c, j) => c + (second.counts[j] as number)), total: smallest.total + second.total };
+      rows = [...rows.filter((r) => r !== smallest && r !== second), merged];
     }
   };
   const mergeSmallestColumn = () => {
-    const totals = columns.map((_, j) => total(rows.map((r) => r.counts[j] ?? 0)));
-    const j = totals.indexOf(Math.min(...totals));
-    const k = j === 0 ? 1 : j === columns.length - 1 ? j - 1 : (totals[j - 1] as number) <= (totals[j + 1] as number) ? j - 1 : j + 1;
-    const [a, b] = [Math.min(j, k), Math.max(j, k)];
-    columns = [...columns.slice(0, a), [...(columns[a] as number[]), ...(columns[b] as number[])], ...columns.slice(b + 1)];
-    for (const r of rows) r.counts = [...r.counts.slice(0, a), (r.counts[a] as number) + (r.counts[b] as number), ...r.counts.slice(b + 1)];
+    const [kept, removed] = columns.mergeSmallest();
+    for (const r of rows) r.counts[kept] = (r.counts[kept] as number) + (r.counts[removed] as number);
   };
 
-  while (!expectedCountsOk(expectedOf(rows))) {
+  while (!cochranHolds(rows, columns, n)) {
     // Keep at least two rows of named taxa where possible: pool while more than two rows remain.
     if (rows.length > 2) poolSmallestRow();
-    else if (columns.length > 2) mergeSmallestColumn();
+    else if (columns.size > 2) mergeSmallestColumn();
     else return { ok: false, reason: 'too few grains per traverse for a χ² test, even with rare types pooled and traverses merged' };
   }
-  const result = chiSquareTest(rows.map((r) => r.counts));
+  const live = columns.order();
+  const table = rows.map((r) => live.map((j) => r.counts[j] as number));
+  const result = chiSquareTest(table);
   const flagged: EvennessCell[] = [];
+  const columnTraverses = live.map((j) => columns.traverses[j] as number[]);
   rows.forEach((r, i) =>
-    columns.forEach((traverses, j) => {
+    columnTraverses.forEach((traverses, j) => {
       const residual = (result.residuals[i] as number[])[j] as number;
       if (Math.abs(residual) > threshold) {
-        flagged.push({ taxon: r.taxon, traverses, observed: r.counts[j] as number, expected: (result.expected[i] as number[])[j] as number, residual });
+        flagged.push({ taxon: r.taxon, traverses, observed: (table[i] as number[])[j] as number, expected: (result.expected[i] as number[])[j] as number, residual });
       }
     }),
   );
@@ -100,9 +119,9 @@ export function evennessAcrossTraverses(counts: ReadonlyMap<string, ReadonlyMap<
     test: {
       result,
       taxa: rows.map((r) => r.taxon),
-      columns,
+      columns: columnTraverses,
       pooledTaxa,
-      mergedTraverses: columns.filter((c) => c.length > 1),
+      mergedTraverses: columnTraverses.filter((c) => c.length > 1),
       flagged,
     },
   };

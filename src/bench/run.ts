@@ -1,5 +1,6 @@
 // npm run bench: speed measured as ratios against baselines taken in the same run, on the same disk.
 import { cpus } from 'node:os';
+import { benchCraftedInput } from './crafted-input.js';
 import { benchFirstFrame } from './first-frame.js';
 import { benchLockRace } from './lock-race-bench.js';
 import { benchOptionalStopping } from './optional-stopping.js';
@@ -18,6 +19,7 @@ if (!suiteOnly) {
   out(await benchFirstFrame());
   out(benchStatsRecompute());
   out(benchOptionalStopping(Number(process.env.EXINE_SIM_RUNS ?? 2000)));
+  out(benchCraftedInput());
   out(await benchLockRace(Number(process.env.EXINE_LOCK_ROUNDS ?? 1000)));
 }
 if (suiteOnly || process.argv.includes('--suite')) out(benchTestSuite());
