@@ -36,8 +36,6 @@ export function isPrintableKey(key: string): boolean {
   return !UNSEEN.test(key) && !COMBINING.test(key);
 }
 
-/** A name shown on screens and in files: no control or format character that a terminal could act on. */
-export const hasUnseenCharacter = hasUnseen;
 
 function isActionKey(key: string): boolean {
   return (NAMED_KEYS as readonly string[]).includes(key) || (isPrintableKey(key) && key !== ' ');
@@ -79,7 +77,7 @@ export function checkKeymapValue(value: unknown, source: string, strict = false)
   const shape = keymapShape.safeParse(value, { reportInput: true });
   if (!shape.success) return fail(describeIssue(shape.error.issues[0]));
   const raw = shape.data;
-  if (strict && hasUnseenCharacter(raw.name)) return fail(`"name" has a control or invisible character ("${visible(raw.name)}"); type the name plainly`);
+  if (strict && hasUnseen(raw.name)) return fail(`"name" has a control or invisible character ("${visible(raw.name)}"); type the name plainly`);
 
   const keys: Record<string, TaxonBinding> = {};
   const keyOfTaxon = new Map<string, string>();
@@ -93,7 +91,7 @@ export function checkKeymapValue(value: unknown, source: string, strict = false)
       );
     }
     const taxon = binding.taxon.trim();
-    if (strict && hasUnseenCharacter(taxon)) return fail(`key "${visible(key)}" has a taxon name with a control or invisible character ("${visible(taxon)}"); type the name plainly`);
+    if (strict && hasUnseen(taxon)) return fail(`key "${visible(key)}" has a taxon name with a control or invisible character ("${visible(taxon)}"); type the name plainly`);
     // Names that differ only in how accents are encoded are one name (compared in NFC); the file's own spelling is kept.
     const other = keyOfTaxon.get(taxon.normalize('NFC'));
     if (other !== undefined) return fail(`taxon "${taxon}" is on two keys, "${other}" and "${key}"; keep one`);

@@ -1,6 +1,7 @@
 import { closeSync, fsyncSync, ftruncateSync, openSync, rmSync, writeSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { ExineError } from '../errors.js';
+import { plainIoError } from '../io/describe-io-error.js';
 import { fsyncDir } from '../io/fsync-dir.js';
 import type { Damage } from './scan-log.js';
 
@@ -46,8 +47,7 @@ export function repairTail(path: string, bytes: Buffer, damage: Damage, now: Dat
   } catch (error) {
     closeSync(backup.fd);
     rmSync(backupPath, { force: true });
-    const code = (error as NodeJS.ErrnoException).code;
-    const why = code === 'ENOSPC' ? 'the disk is full' : (code ?? (error as Error).message);
+    const why = plainIoError(error) ?? (error as NodeJS.ErrnoException).code ?? (error as Error).message;
     throw new ExineError(`cannot repair ${path}: saving its damaged tail to ${backup.name} failed (${why}); nothing was changed, the file is as it was`);
   }
   closeSync(backup.fd);

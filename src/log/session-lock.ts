@@ -2,6 +2,7 @@ import { unlinkSync } from 'node:fs';
 import { hostname } from 'node:os';
 import { basename } from 'node:path';
 import { ExineError } from '../errors.js';
+import { plainIoError } from '../io/describe-io-error.js';
 import { isProcessRunning, processStartToken } from '../io/process-info.js';
 import { createLockFile, newLockInfo, readLock, type LockInfo, type LockRead } from './lock-file.js';
 
@@ -96,13 +97,7 @@ function removeStale(path: string, judged: Found): void {
   }
 }
 
-function describeFailure(error: unknown): string {
-  const code = (error as NodeJS.ErrnoException).code;
-  if (code === 'ENOSPC') return 'the disk is full';
-  if (code === 'EACCES' || code === 'EPERM') return 'no permission to write in its folder';
-  if (code === 'EROFS') return 'the folder is read-only';
-  return (error as Error).message;
-}
+const describeFailure = (error: unknown): string => plainIoError(error) ?? (error as Error).message;
 
 /** An exclusive claim on one session file for this process's lifetime. */
 export class SessionLock {

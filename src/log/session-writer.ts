@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import * as fs from 'node:fs';
 import { dirname } from 'node:path';
 import { ExineError } from '../errors.js';
+import { plainIoError } from '../io/describe-io-error.js';
 import { fsyncDir } from '../io/fsync-dir.js';
 import type { EventPayload, SessionEvent } from '../model/events.js';
 import { checkEventContent } from './check-event.js';
@@ -208,7 +209,5 @@ export class SessionWriter {
 
 function describe(error: unknown): string {
   const e = error as NodeJS.ErrnoException;
-  if (e.code === 'ENOSPC') return 'the disk is full';
-  if (e.code === 'EDQUOT') return 'the disk quota is used up';
-  return e.code ?? e.message ?? String(error);
+  return plainIoError(error) ?? e.code ?? e.message ?? String(error);
 }
