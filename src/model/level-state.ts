@@ -1,6 +1,5 @@
-import type { Keymap } from '../keymap/keymap.js';
 import type { RuleSet } from '../rules/rule-set.js';
-import type { Spike } from '../stats/concentration.js';
+import type { LevelCounts } from '../stats/level-counts.js';
 import type { OpenEvent, SessionEvent } from './events.js';
 
 export interface CountedGrain {
@@ -14,12 +13,14 @@ export interface GrainStack extends CountedGrain {
   readonly below: GrainStack | null;
 }
 
-/** Everything the screen, the summary and the export know about a level: a fold of its events. */
-export interface LevelState {
+/**
+ * Everything the screen, the summary and the export know about a level: a fold of
+ * its events. The counts the statistics read (keymap, counts, grains, first
+ * appearances, plateau, spike, stack) are declared once, in LevelCounts.
+ */
+export interface LevelState extends LevelCounts {
   readonly header: OpenEvent;
-  readonly keymap: Keymap;
   readonly rules: RuleSet;
-  readonly spike: Spike | null;
   /** As the last rules-met / rules-unmet event says. */
   readonly rulesMet: boolean;
   /** The first and the latest rules-met events, or null. */
@@ -28,13 +29,7 @@ export interface LevelState {
   readonly lastSeq: number;
   readonly lastAt: string;
   readonly traverse: number;
-  /** Grains per taxon, undone grains excluded. */
-  readonly counts: Readonly<Record<string, number>>;
-  readonly grains: number;
-  /** seq of the first still-counted grain of each counted taxon: when each type entered the count. */
-  readonly firstSeen: Readonly<Record<string, number>>;
-  /** Grains of the pollen sum counted since the last type new to the sum (the plateau). */
-  readonly sinceNewType: number;
+  /** The grains still counted, with their traverses. */
   readonly stack: GrainStack | null;
   readonly undos: number;
   /** The grains each standing void took out, by the void's seq: a restore puts them back. */
