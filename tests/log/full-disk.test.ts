@@ -1,38 +1,17 @@
-import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
 import { scanLog } from '../../src/log/scan-log.js';
 import { TALLY_CHILD, startChild } from '../helpers/child.js';
 import { newLevelFile } from '../helpers/levels.js';
+import { tinyDisk } from '../helpers/tiny-disk.js';
 
-// A real full disk: a 64 KiB tmpfs. Mounting needs root (as on the project's machines and CI);
-// elsewhere this test is skipped and tests/log/writer-faults.test.ts covers the same path.
-let mountPoint = '';
-function tryMount(): boolean {
-  // Not tempDir(): that is emptied after each test, and a mounted folder cannot be removed.
-  mountPoint = mkdtempSync(join(tmpdir(), 'exine-full-disk-'));
-  try {
-    execFileSync('mount', ['-t', 'tmpfs', '-o', 'size=64k', 'tmpfs', mountPoint], { stdio: 'ignore' });
-    return true;
-  } catch {
-    return false;
-  }
-}
-let mounted = false;
-beforeAll(() => {
-  mounted = tryMount();
-});
-afterAll(() => {
-  if (mounted) execFileSync('umount', [mountPoint]);
-  rmSync(mountPoint, { recursive: true, force: true });
-});
+// A real full disk (root only; elsewhere skipped, and tests/log/writer-faults.test.ts covers the same path).
+const disk = tinyDisk('exine-full-disk-');
 
 describe('a disk that fills up while counting (real tmpfs)', () => {
   it('shows the error, records nothing half-written, and loses no acknowledged grain', async (ctx) => {
-    if (!mounted) ctx.skip();
-    const { path, writer } = newLevelFile(mountPoint);
+    if (!disk.mounted()) ctx.skip();
+    const { path, writer } = newLevelFile(disk.dir);
     writer.close();
     const child = startChild([TALLY_CHILD, path]);
     await child.waitFor(/ready/);

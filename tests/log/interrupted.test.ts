@@ -1,9 +1,7 @@
-import { execFileSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, readdirSync, readFileSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { repairTail } from '../../src/log/repair-tail.js';
 import { scanLog } from '../../src/log/scan-log.js';
 import { nodeWriterFs } from '../../src/log/session-writer.js';
@@ -12,6 +10,7 @@ import { createLevel, readLevel, resumeLevel } from '../../src/session/session-f
 import { startChild } from '../helpers/child.js';
 import { grain, openPayload, sessionText, TINY_KEYMAP } from '../helpers/levels.js';
 import { tempDir } from '../helpers/temp-dir.js';
+import { fillDisk, tinyDisk } from '../helpers/tiny-disk.js';
 
 const CREATE_CHILD = fileURLToPath(new URL('../fixtures/create-child.mjs', import.meta.url));
 const INFO = { level: 'I-1', depth: 1, site: null, core: null, slide: null, analyst: null };
@@ -102,31 +101,16 @@ describe('a repair that is stopped halfway', () => {
 
 // A real full disk: a 64 KiB tmpfs (root only, as on the project's machines and CI; skipped elsewhere).
 describe('a disk too full for the repair backup', () => {
-  const mountPoint = mkdtempSync(join(tmpdir(), 'exine-full-repair-'));
-  let mounted = false;
-  try {
-    execFileSync('mount', ['-t', 'tmpfs', '-o', 'size=64k', 'tmpfs', mountPoint], { stdio: 'ignore' });
-    mounted = true;
-  } catch {
-    // not root
-  }
-  afterAll(() => {
-    if (mounted) execFileSync('umount', [mountPoint]);
-    rmSync(mountPoint, { recursive: true, force: true });
-  });
+  const disk = tinyDisk('exine-full-repair-');
 
   it('says so in one line, leaves no 0-byte backup, and changes nothing', (ctx) => {
-    if (!mounted) ctx.skip();
+    if (!disk.mounted()) ctx.skip();
+    const mountPoint = disk.dir;
     const path = join(mountPoint, 'level.jsonl');
     const payloads = [openPayload(), { type: 'sitting' as const, sitting: 1 }, ...Array.from({ length: 60 }, () => grain('Alnus'))];
     const text = sessionText(payloads);
     writeFileSync(path, `${text}${'x'.repeat(12_000)}`);
-    let fills = 0;
-    try {
-      for (;;) writeFileSync(join(mountPoint, `fill-${fills++}`), Buffer.alloc(4096));
-    } catch {
-      // full
-    }
+    const fills = fillDisk(mountPoint);
     // Room for the lock file (one page), none for the 12 KB backup.
     rmSync(join(mountPoint, 'fill-0'));
     rmSync(join(mountPoint, `fill-${fills - 1}`), { force: true });

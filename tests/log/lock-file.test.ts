@@ -1,14 +1,14 @@
-import { execFileSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { hostname, tmpdir } from 'node:os';
+import { existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { hostname } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { lockRace } from '../../src/bench/lock-race.js';
 import { lockPathOf, SessionLock } from '../../src/log/session-lock.js';
 import { resumeLevel } from '../../src/session/session-files.js';
 import { startChild } from '../helpers/child.js';
 import { newLevelFile } from '../helpers/levels.js';
 import { tempDir } from '../helpers/temp-dir.js';
+import { fillDisk, tinyDisk } from '../helpers/tiny-disk.js';
 
 function closedLevel() {
   const level = newLevelFile(tempDir());
@@ -60,29 +60,14 @@ describe('eight writers racing for one stale lock (real processes)', () => {
 
 // A real full disk: a 64 KiB tmpfs (root only, as on the project's machines and CI; skipped elsewhere).
 describe('a disk too full for the lock file', () => {
-  const mountPoint = mkdtempSync(join(tmpdir(), 'exine-full-lock-'));
-  let mounted = false;
-  try {
-    execFileSync('mount', ['-t', 'tmpfs', '-o', 'size=64k', 'tmpfs', mountPoint], { stdio: 'ignore' });
-    mounted = true;
-  } catch {
-    // not root
-  }
-  afterAll(() => {
-    if (mounted) execFileSync('umount', [mountPoint]);
-    rmSync(mountPoint, { recursive: true, force: true });
-  });
+  const disk = tinyDisk('exine-full-lock-');
 
   it('says so in one line at once, and leaves no lock behind', (ctx) => {
-    if (!mounted) ctx.skip();
+    if (!disk.mounted()) ctx.skip();
+    const mountPoint = disk.dir;
     const { path, writer } = newLevelFile(mountPoint);
     writer.close();
-    let filler = 0;
-    try {
-      for (;;) writeFileSync(join(mountPoint, `fill-${filler++}`), Buffer.alloc(4096));
-    } catch {
-      // full
-    }
+    fillDisk(mountPoint);
     for (let i = 0; ; i++) {
       try {
         writeFileSync(join(mountPoint, `tiny-${i}`), 'x');
