@@ -1,4 +1,5 @@
 // npm run bench: speed measured as ratios against baselines taken in the same run, on the same disk.
+// `npm run bench -- --only tally,resume` runs the named sections alone; --suite adds the test-suite timing.
 import { cpus } from 'node:os';
 import { benchCraftedInput } from './crafted-input.js';
 import { benchFirstFrame } from './first-frame.js';
@@ -9,17 +10,35 @@ import { benchResume } from './resume.js';
 import { benchTallyPath } from './tally-path.js';
 import { benchTestSuite } from './test-suite.js';
 
-const out = (lines: string[]) => process.stdout.write(`${lines.join('\n')}\n\n`);
-// --suite adds (f), the whole test suite's wall time; --suite-only runs (f) alone.
-const suiteOnly = process.argv.includes('--suite-only');
-process.stdout.write(`exine benchmark · node ${process.version} · ${cpus()[0]?.model ?? 'cpu'} × ${cpus().length}\n\n`);
-if (!suiteOnly) {
-  out(benchTallyPath());
-  out(benchResume());
-  out(await benchFirstFrame());
-  out(benchStatsRecompute());
-  out(benchOptionalStopping(Number(process.env.EXINE_SIM_RUNS ?? 2000)));
-  out(benchCraftedInput());
-  out(await benchLockRace(Number(process.env.EXINE_LOCK_ROUNDS ?? 1000)));
+type Section = { name: string; run: () => string[] | Promise<string[]>; optIn?: boolean };
+
+// One line per section; a new section is one more line here.
+const SECTIONS: Section[] = [
+  { name: 'tally', run: benchTallyPath },
+  { name: 'resume', run: benchResume },
+  { name: 'first-frame', run: benchFirstFrame },
+  { name: 'stats', run: benchStatsRecompute },
+  { name: 'stopping', run: () => benchOptionalStopping(Number(process.env.EXINE_SIM_RUNS ?? 2000)) },
+  { name: 'crafted', run: benchCraftedInput },
+  { name: 'lock-race', run: () => benchLockRace(Number(process.env.EXINE_LOCK_ROUNDS ?? 1000)) },
+  { name: 'suite', run: benchTestSuite, optIn: true },
+];
+
+function chosen(argv: string[]): Section[] {
+  const at = argv.indexOf('--only');
+  const legacySuiteOnly = argv.includes('--suite-only');
+  if (at < 0 && !legacySuiteOnly) {
+    return SECTIONS.filter((s) => !s.optIn || argv.includes(`--${s.name}`));
+  }
+  const names = legacySuiteOnly ? ['suite'] : (argv[at + 1] ?? '').split(',').filter(Boolean);
+  const unknown = names.filter((n) => !SECTIONS.some((s) => s.name === n));
+  if (names.length === 0 || unknown.length > 0) {
+    process.stderr.write(`exine bench: --only takes section names separated by commas (${SECTIONS.map((s) => s.name).join(', ')})${unknown.length ? `, not ${unknown.join(', ')}` : ''}\n`);
+    process.exit(2);
+  }
+  return SECTIONS.filter((s) => names.includes(s.name));
 }
-if (suiteOnly || process.argv.includes('--suite')) out(benchTestSuite());
+
+const sections = chosen(process.argv.slice(2));
+process.stdout.write(`exine benchmark · node ${process.version} · ${cpus()[0]?.model ?? 'cpu'} × ${cpus().length}\n\n`);
+for (const section of sections) process.stdout.write(`${(await section.run()).join('\n')}\n\n`);
