@@ -7,8 +7,9 @@ import type { Spike } from '../stats/concentration.js';
  * The session-file format this version writes; files with a higher number are refused.
  * 2 added the full rule set, marker spike data and the rules-met / rules-unmet events;
  * format 1 files read as format 2 with a target-sum rule and no spike.
+ * 3 added cf. grains, the reopen of a finished level and the undo of a traverse change.
  */
-export const FORMAT_VERSION = 2;
+export const FORMAT_VERSION = 3;
 
 /** What the first line of every session file records about the level. */
 export interface LevelInfo {
@@ -45,6 +46,8 @@ export interface GrainPayload {
   readonly traverse: number;
   /** The key that was pressed, for the audit. */
   readonly key: string;
+  /** A "cf." grain: probably this taxon, not certain. It counts with its taxon. Absent before format 3. */
+  readonly cf?: true;
 }
 
 export interface UndoPayload {
@@ -57,6 +60,21 @@ export interface TraversePayload {
   readonly type: 'traverse';
   /** Number of the traverse that starts here. */
   readonly traverse: number;
+}
+
+/** A traverse change taken back (an undo right after it): counting goes on in the traverse before. */
+export interface TraverseUndoPayload {
+  readonly type: 'traverse-undo';
+  /** seq of the traverse event taken back. */
+  readonly of: number;
+  /** The traverse counting goes back to. */
+  readonly traverse: number;
+}
+
+/** A finished level opened for counting again, with the analyst's reason. */
+export interface ReopenPayload {
+  readonly type: 'reopen';
+  readonly reason: string;
 }
 
 /** A note, tied to a grain (or to the level), with the stage position where that grain can be found again. */
@@ -150,6 +168,8 @@ export type EventPayload =
   | GrainPayload
   | UndoPayload
   | TraversePayload
+  | TraverseUndoPayload
+  | ReopenPayload
   | NotePayload
   | TaxonPayload
   | SittingPayload

@@ -1,8 +1,20 @@
 import { render } from 'ink';
 import { CountingSession } from '../session/counting-session.js';
-import type { OpenedLevel } from '../session/session-files.js';
+import { readLevel, type OpenedLevel } from '../session/session-files.js';
+import type { LevelState } from '../model/level-state.js';
 import { levelTable } from '../stats/level-table.js';
 import { CountScreen } from './count-screen.js';
+
+/** What the terminal keeps after the screen: saved, or finished with the hash to write down, or only looked at. */
+function quitLine(path: string, state: LevelState, viewOnly: boolean): string {
+  const table = levelTable(state);
+  const totals = `${table.grains === 1 ? '1 grain' : `${table.grains} grains`}, pollen sum ${table.pollenSum}`;
+  if (!viewOnly && state.recent.at(-1)?.type !== 'finish') return `saved ${path}: ${totals}`;
+  // The hash of the last line seals the file: written down now, it shows later that nothing was changed.
+  const { scan } = readLevel(path);
+  const seal = `last line #${state.lastSeq}, hash ${scan.lastHash}`;
+  return viewOnly ? `${path} is finished and was opened read-only; nothing changed (${totals}; ${seal})` : `finished ${path}: ${totals}\n${seal} (write it down: exine verify shows it again)`;
+}
 
 const SIGNALS = { SIGINT: 2, SIGHUP: 1, SIGTERM: 15 } as const;
 
@@ -38,8 +50,7 @@ export async function runCountScreen(opened: OpenedLevel, options: { bell?: bool
     for (const [signal, handler] of handlers) process.off(signal, handler);
     process.off('uncaughtException', onCrash);
   }
-  const table = levelTable(session.getSnapshot().state);
   for (const notice of opened.notices) process.stdout.write(`on opening: ${notice}\n`);
-  process.stdout.write(`saved ${session.path}: ${table.grains} grains, pollen sum ${table.pollenSum}\n`);
+  process.stdout.write(`${quitLine(session.path, session.getSnapshot().state, opened.writer.viewOnly === true)}\n`);
   return exitCode;
 }

@@ -12,6 +12,7 @@ import { RULE_OPTIONS, rulesFromFlags, spikeFromFlags } from '../rule-flags.js';
 import { parsePref, type Preferences } from '../../prefs/pref-values.js';
 import { readPreferences } from '../../prefs/preferences.js';
 import type { Io } from '../io.js';
+import { checkedDepth } from '../depth-flag.js';
 
 const OPTIONS = {
   keymap: { type: 'string' },
@@ -24,6 +25,8 @@ const OPTIONS = {
   quiet: { type: 'boolean' },
   rare: { type: 'string' },
   break: { type: 'string' },
+  reopen: { type: 'string' },
+  'allow-negative-depth': { type: 'boolean' },
   ...RULE_OPTIONS,
 } as const;
 
@@ -69,7 +72,7 @@ export function openForCounting(
   defaults: LevelDefaults = {},
   cwd = process.cwd(),
 ): OpenedLevel {
-  const depth = finiteNumber('count', 'depth', flags.depth);
+  const depth = checkedDepth(finiteNumber('count', 'depth', flags.depth), flags['allow-negative-depth'] !== undefined);
   const given: Partial<LevelInfo> = {
     level: flags.level,
     depth,
@@ -82,6 +85,7 @@ export function openForCounting(
     const keymap = flags.keymap ? loadKeymap(flags.keymap, cwd).keymap : null;
     // One read of the file: the checks run on the level as resume reads it, before it writes.
     return resumeLevel(path, {
+      reopen: flags.reopen,
       beforeWrite: (state) => {
         checkAgainstRecorded(path, state, given, keymap);
         const spike = spikeFromFlags(flags, state.spike);
@@ -128,10 +132,10 @@ export async function countCommand(args: string[], io: Io): Promise<number> {
   const { values, positionals } = parseFlags('count', args, OPTIONS);
   if (positionals.length !== 1) throw new UsageError('exine count: give one session FILE (see exine count --help)');
   const path = resolve(io.cwd, positionals[0] as string);
-  const { quiet, rare, break: rest, ...flags } = values;
+  const { quiet, rare, break: rest, 'allow-negative-depth': allowNegative, ...flags } = values;
   const { prefs } = readPreferences(io.env);
   const screen = screenOptions(prefs, { quiet, rare, break: rest });
-  const opened = openForCounting(path, flags as Record<string, string | undefined>, () => requireTerminal('count', io), prefs, io.cwd);
+  const opened = openForCounting(path, { ...(flags as Record<string, string | undefined>), ...(allowNegative ? { 'allow-negative-depth': '' } : {}) }, () => requireTerminal('count', io), prefs, io.cwd);
   drawLiveOnThisTerminal();
   const { runCountScreen } = await import('../../screens/run-count-screen.js');
   return runCountScreen(opened, screen);
