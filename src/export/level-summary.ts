@@ -37,6 +37,7 @@ export function levelSummary(state: LevelState, rarefyAt: readonly number[] = []
     sittings: state.sitting,
     closedCleanly: state.closed,
     finishedAt: state.finishedAt,
+    reopens: state.reopens,
     groups: table.groupTotals,
     sumGroups: table.sumGroups,
     taxa: table.rows.map((r) => {
@@ -48,6 +49,8 @@ export function levelSummary(state: LevelState, rarefyAt: readonly number[] = []
         group: r.group,
         inSum: r.inSum,
         count: r.count,
+        /** Of `count`, the cf. grains (identification probable, not certain). */
+        cf: state.cf[r.taxon] ?? 0,
         basis: r.basis,
         percent: r.percent,
         ciLow: r.ciLow,

@@ -13,7 +13,7 @@ export function describeEvent(event: SessionEvent): string {
     case 'traverse':
       return `traverse ${event.traverse} started`;
     case 'traverse-undo':
-      return `traverse change #${event.of} taken back: on in traverse ${event.traverse}`;
+      return `back to traverse ${event.traverse} (undo of #${event.of})`;
     case 'reopen':
       return `finished level reopened: ${event.reason}`;
     case 'note':

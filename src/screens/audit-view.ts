@@ -3,7 +3,7 @@ import type { TraverseRow } from '../audit/level-audit.js';
 import { describeEvent } from '../model/describe-event.js';
 import type { SessionEvent } from '../model/events.js';
 import { fit } from '../text/cells.js';
-import { auditHeading, clockTime, grainStatus, overviewLines, traverseLine } from './audit-lines.js';
+import { auditHeading, clockTime, grainStatus, overviewLines, traverseHeading, traverseLine } from './audit-lines.js';
 import { eventsOf, type AuditUi, type AuditView } from './audit-keys.js';
 import { line, truncated, type Line } from './styled-line.js';
 
@@ -44,11 +44,11 @@ export function auditRooms(height: number, traverses: number): { tableRoom: numb
 function traverseTable(traverses: readonly TraverseRow[], ui: AuditUi, room: number, width: number): Line[] {
   const { shown, offset } = scrollWindow(traverses, ui.selected, room);
   return [
-    line(fit('   # start     time grain type  /min new und voi not', width), { bold: true }),
+    line(fit(traverseHeading(width), width), { bold: true }),
     ...shown.map((t, i) => {
       const here = offset + i === ui.selected;
       const mark = here ? (ui.focus === 'traverses' ? '▶' : '›') : ' ';
-      return truncated(`${mark}${traverseLine(t)}`, { inverse: here && ui.focus === 'traverses', bold: here, tone: t.voidedWhole ? 'zero' : undefined });
+      return truncated(`${mark}${traverseLine(t, width)}`, { inverse: here && ui.focus === 'traverses', bold: here, tone: t.voidedWhole ? 'zero' : undefined });
     }),
   ];
 }
@@ -61,13 +61,25 @@ function traverseDetail(traverse: TraverseRow | undefined, ui: AuditUi, room: nu
     : 'no traverse yet';
   return [
     truncated(title, { bold: true }),
-    truncated(traverse?.newTypes.length ? `new here: ${traverse.newTypes.join(', ')}` : ' ', { tone: 'zero' }),
+    truncated(newHere(traverse), { tone: 'zero' }),
     ...shown.map((e, i) => {
       const status = statusOf(e);
       const picked = ui.focus === 'grains' && offset + i === ui.grainIndex;
       return truncated(`${picked ? '▶' : ' '} #${e.seq} ${clockTime(e.at)} ${describeEvent(e)}${status ? ` · ${status}` : ''}`, { inverse: picked, tone: status ? 'warning' : undefined });
     }),
   ];
+}
+
+/** What is new in a traverse: types, then other taxa apart, then its cf. grains; or that it is empty. */
+function newHere(t: TraverseRow | undefined): string {
+  if (!t) return ' ';
+  const parts = [
+    ...(t.empty ? [t.takenBack ? `empty: the change to it was taken back (#${t.takenBack})` : 'empty: no grain recorded'] : []),
+    ...(t.newTypes.length ? [`new types: ${t.newTypes.join(', ')}`] : []),
+    ...(t.newOthers.length ? [`first of other groups: ${t.newOthers.join(', ')}`] : []),
+    ...(t.cf.length ? [`cf.: ${t.cf.map(([taxon, n]) => `${taxon} ${n}`).join(', ')}`] : []),
+  ];
+  return parts.join(' · ') || ' ';
 }
 
 function promptLine(read: AuditRead, ui: AuditUi): Line {

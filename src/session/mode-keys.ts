@@ -132,7 +132,7 @@ function cfKey(b: Burst, key: KeyPress): Outcome {
     b.stage({ type: 'grain', taxon: command.taxon, traverse: state.traverse, key: command.key, cf: true });
     b.judge();
     const after = b.state();
-    b.say(`cf. ${command.taxon} counted (${after.cf[command.taxon] ?? 0} of its ${after.counts[command.taxon] ?? 0} grains are cf.)`);
+    b.say(`cf. ${command.taxon} counted (${command.taxon}: ${after.counts[command.taxon] ?? 0}, of them cf. ${after.cf[command.taxon] ?? 0})`);
     return 'go-on';
   }
   if (command.kind === 'action' && command.action === 'cf') {
