@@ -39,7 +39,7 @@ function negativeValue(args: readonly string[], message: string): string | null 
   if (value === undefined || !/^-\d/.test(value)) return null;
   return MAY_BE_NEGATIVE.has(flag)
     ? `a negative --${flag} is written --${flag}=${value} (with --allow-negative-depth for a depth above the datum)`
-    : `--${flag} cannot be negative ("${value}"); give a number above 0`;
+    : `--${flag} cannot be negative ("${value}")`;
 }
 
 /** `hint` is added to the message, e.g. " (or off to drop the rule)". */
