@@ -44,7 +44,7 @@ describe('exine audit --plain', () => {
     expect(out).toMatch(/keymap "tiny" · counted 2026-11-02 09:00 UTC to 2026-11-02 09:\d\d UTC · not finished/);
     expect(out).toMatch(/integrity: intact: level\.jsonl: intact, 1\d\d lines, chain verified/);
     expect(out).toMatch(/\n\s+1  2026-11-02 09:00 UTC\s+00:02:0\d\s+40\s+3 /);
-    expect(out).toMatch(/\n\s+3  2026-11-02 09:0\d\s+[\d:]+\s+47\s+4 /);
+    expect(out).toMatch(/\n\s+3  2026-11-02 09:0\d UTC\s+[\d:]+\s+47\s+4 /);
     expect(out).toMatch(/Evenness across traverses \(χ² test of homogeneity, \d types × 3 traverses\): X² = [\d.]+, df = \d+, p = [\de.-]+: the types are NOT spread alike across traverses\./);
     expect(out).toMatch(/Traverse 3 has more Betula than the rest \(30 counted/);
     expect(out).toMatch(/\[double-press\] #\d+ and #\d+: key "c" \(Corylus\) twice within 60 ms/);
