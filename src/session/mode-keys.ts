@@ -1,4 +1,3 @@
-import { GROUPS } from '../keymap/groups.js';
 import type { KeyPress } from '../input/key-press.js';
 import { editLine } from '../input/line-edit.js';
 import type { Burst, Outcome } from './burst.js';
@@ -65,7 +64,7 @@ function newTypeKey(b: Burst, mode: ModeOf<'new-type'>, key: KeyPress): Outcome 
     b.mode = { ...mode, text: next };
     return 'go-on';
   }
-  const parsed = parseNewType(mode.text, GROUPS);
+  const parsed = parseNewType(mode.text, b.state().keymap.groups.map((g) => g.name));
   if (!parsed.ok) {
     b.say(parsed.message, 'warning');
     return 'go-on';

@@ -53,7 +53,7 @@ describe('keymap files', () => {
 
   it('names the key with an unknown group and lists the groups', () => {
     expect(err('{"name":"x","keys":{"q":{"taxon":"Quercus","group":"treez"}}}')).toBe(
-      'keymap my.json: key "q" has unknown group "treez" (expected one of trees, shrubs, herbs, spores, aquatics, markers, indeterminable, other)',
+      'keymap my.json: key "q" has unknown group "treez" (expected one of trees, shrubs, herbs, spores, aquatics, markers, indeterminable, other); did you mean "trees"?; a group of your own goes in "groups" with its role',
     );
   });
 
