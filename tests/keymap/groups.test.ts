@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseKeymap } from '../../src/keymap/parse-keymap.js';
@@ -12,7 +12,8 @@ import { evaluateRules } from '../../src/rules/evaluate-rules.js';
 import { NO_RULES } from '../../src/rules/rule-set.js';
 import { createLevel, readLevel } from '../../src/session/session-files.js';
 import { DEFAULT_RULES } from '../../src/rules/rule-set.js';
-import { grain, openPayload, stateOf } from '../helpers/levels.js';
+import { grain, openPayload, sessionText, stateOf } from '../helpers/levels.js';
+import type { EventPayload } from '../../src/model/events.js';
 import { tempDir } from '../helpers/temp-dir.js';
 
 const ok = (text: string): Keymap => {
@@ -122,6 +123,22 @@ describe('groups of the keymap\'s own, with roles', () => {
     expect(roleOf(r.keymap, 'shrubs')).toBe('outside');
     expect(roleOf(r.keymap, 'markers')).toBe('marker');
     expect(r.keymap.order).toEqual(['q', 's']);
+  });
+
+  it('a level counted with the earlier keypad keymap keeps its own keys (its copy), whatever the bundled file says now', () => {
+    const earlier = {
+      name: 'Upland one-hand keypad',
+      keys: { '0': { taxon: 'Lycopodium (exotic marker)', group: 'markers' }, '7': { taxon: 'Pinus', group: 'trees' }, '.': { taxon: 'Indeterminable', group: 'indeterminable' } },
+      actions: { undo: '-', traverse: '+', note: 'enter', help: '?', newType: '=' },
+      sum: ['trees', 'shrubs', 'herbs'],
+    };
+    const dir = tempDir();
+    const path = join(dir, 'old.jsonl');
+    writeFileSync(path, sessionText([{ ...openPayload(), format: 2, keymap: earlier } as unknown as EventPayload, grain('Pinus')]));
+    const { state } = readLevel(path);
+    expect(state.keymap.actions).toMatchObject({ undo: '-', traverse: '+', note: 'enter' });
+    expect(state.keymap.keys['0']?.taxon).toBe('Lycopodium (exotic marker)');
+    expect(state.counts.Pinus).toBe(1);
   });
 
   it('refuses markers or indeterminables inside the sum, and says why', () => {
