@@ -35,11 +35,17 @@ function drawRows(keymap: Keymap, keys: readonly GridKey[], cellWidth: number, s
   return out;
 }
 
+/** Only the drawing of the keyboard or keypad, row by row. */
+export function drawGrid(keymap: Keymap, cellWidth?: number): string[] {
+  const grid = keyGrid(keymap);
+  return grid.kind === 'keypad' ? drawRows(keymap, grid.keys, cellWidth ?? 12, false) : drawRows(keymap, grid.keys, cellWidth ?? 7, true);
+}
+
 /** The keymap drawn as the keyboard (or numeric keypad) it is used on, then as a list in the file's order. */
 export function drawLayout(keymap: Keymap): string {
   const grid = keyGrid(keymap);
   const pad = grid.kind === 'keypad';
-  const drawing = pad ? drawRows(keymap, grid.keys, 12, false) : drawRows(keymap, grid.keys, 7, true);
+  const drawing = drawGrid(keymap);
   const letters = groupLetters(keymap.groups.map((g) => g.name));
   const used = new Set(Object.values(keymap.keys).map((b) => b.group));
   const list = bindingsOf(keymap).map(
