@@ -3,6 +3,7 @@ import { basename, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
 import { toCsv } from '../../export/csv-text.js';
 import { LONG_COLUMNS, longRows, NOTE_COLUMNS, noteRows, orderLevels, wideTable, type ExportLevel } from '../../export/level-export.js';
+import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { plural } from '../../text/cells.js';
 import { readLevel } from '../../session/session-files.js';
@@ -22,6 +23,7 @@ export function exportCommand(args: string[], io: Io): number {
     throw new UsageError(`exine export: --format must be long, wide or notes, not "${values.format}"`);
   }
   const out = values.out === undefined ? null : resolve(io.cwd, values.out);
+  if (values.out !== undefined) refuseOwnInput('export', values.out, positionals, io.cwd);
   if (out && existsSync(out) && !values.force) throw new ExineError(`${values.out} already exists; add --force to replace it`);
   const levels: ExportLevel[] = positionals.map((file) => {
     const { state, warnings } = readLevel(resolve(io.cwd, file));
