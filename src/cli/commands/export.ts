@@ -7,7 +7,7 @@ import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { plural } from '../../text/cells.js';
 import { readLevel } from '../../session/session-files.js';
-import type { Io } from '../io.js';
+import { writeData, type Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -39,6 +39,6 @@ export function exportCommand(args: string[], io: Io): number {
   if (out) {
     writeFileAtomic(out, csv, values.force === true);
     io.stderr.write(`exine: wrote ${plural(levels.length, 'level')} to ${values.out}\n`);
-  } else io.stdout.write(csv);
+  } else writeData(io.stdout, csv);
   return 0;
 }
