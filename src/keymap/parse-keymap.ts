@@ -1,6 +1,6 @@
-import { z } from 'zod';
 import { DEFAULT_SUM, GROUPS, isGroup, type Group } from './groups.js';
 import { parseStrictJson } from './json-source.js';
+import { keymapShapeOf } from './keymap-shape.js';
 import {
   ACTION_NAMES,
   DEFAULT_ACTIONS,
@@ -13,16 +13,6 @@ import {
 import { describeIssue } from '../validation/describe-issue.js';
 import { hasUnseen, UNSEEN, visible } from '../text/visible.js';
 
-const keymapShape = z.object({
-  name: z.string().trim().min(1),
-  keys: z.record(
-    z.string(),
-    z.object({ taxon: z.string().trim().min(1), group: z.string() }).loose(),
-  ),
-  // null: the action has no key (a keymap copied into a session file says so for an action whose default key is a taxon's).
-  actions: z.record(z.string(), z.string().nullable()).optional(),
-  sum: z.array(z.string()).optional(),
-}).loose();
 
 export type KeymapResult = { ok: true; keymap: Keymap } | { ok: false; message: string };
 
@@ -74,9 +64,9 @@ function isRecordedKey(key: string): boolean {
  */
 export function checkKeymapValue(value: unknown, source: string, strict = false): KeymapResult {
   const fail = (message: string): KeymapResult => ({ ok: false, message: `keymap ${source}: ${message}` });
-  const shape = keymapShape.safeParse(value, { reportInput: true });
-  if (!shape.success) return fail(describeIssue(shape.error.issues[0]));
-  const raw = shape.data;
+  const shape = keymapShapeOf(value);
+  if (!shape.ok) return fail(shape.message);
+  const raw = shape.raw;
   if (strict && hasUnseen(raw.name)) return fail(`"name" has a control or invisible character ("${visible(raw.name)}"); type the name plainly`);
 
   const keys: Record<string, TaxonBinding> = {};
