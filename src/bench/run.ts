@@ -10,6 +10,7 @@ import { benchStatsRecompute } from './stats-recompute.js';
 import { benchResume } from './resume.js';
 import { benchTallyPath } from './tally-path.js';
 import { benchTestSuite } from './test-suite.js';
+import { benchAuditScale, benchStartUp } from './start-up.js';
 
 type Section = { name: string; run: () => string[] | Promise<string[]>; optIn?: boolean };
 
@@ -23,6 +24,8 @@ const SECTIONS: Section[] = [
   { name: 'crafted', run: benchCraftedInput },
   { name: 'lock-race', run: () => benchLockRace(Number(process.env.EXINE_LOCK_ROUNDS ?? 1000)) },
   { name: 'kill', run: () => benchKill(Number(process.env.EXINE_KILL_ROUNDS ?? 1000)), optIn: true },
+  { name: 'start-up', run: benchStartUp },
+  { name: 'audit-scale', run: benchAuditScale },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];
 
