@@ -1,5 +1,5 @@
-import { isTypeGroup, type Group } from '../keymap/groups.js';
-import { inPollenSum } from '../keymap/keymap.js';
+import { isTypeRole, type Group } from '../keymap/groups.js';
+import { inPollenSum, roleOf } from '../keymap/keymap.js';
 import type { SessionEvent } from '../model/events.js';
 import type { LevelState } from '../model/level-state.js';
 import { correctionsOf, type Correction } from './corrections.js';
@@ -127,7 +127,7 @@ function pollenSumTable(countsBy: ReadonlyMap<number, ReadonlyMap<string, number
 /** One row per traverse, every number from 1 to the current one included. */
 function traverseRows(walk: SittingWalk, countsBy: ReadonlyMap<number, ReadonlyMap<string, number>>, grains: GrainIndex, state: LevelState, events: readonly SessionEvent[]): TraverseRow[] {
   const groupOf = new Map<string, Group>(Object.values(state.keymap.keys).map((b) => [b.taxon, b.group]));
-  const isType = (taxon: string) => isTypeGroup(groupOf.get(taxon) ?? 'other');
+  const isType = (taxon: string) => isTypeRole(roleOf(state.keymap, groupOf.get(taxon) ?? 'other'));
   const newTypesIn = new Map<number, string[]>();
   const newOthersIn = new Map<number, string[]>();
   for (const [taxon, seq] of Object.entries(state.firstSeen)) {

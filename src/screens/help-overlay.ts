@@ -1,4 +1,4 @@
-import { keyLabel, type Keymap } from '../keymap/keymap.js';
+import { bindingsOf, keyLabel, type Keymap } from '../keymap/keymap.js';
 import { fit } from '../text/cells.js';
 import { line, type Line } from './styled-line.js';
 
@@ -13,7 +13,7 @@ export function helpLines(keymap: Keymap, width: number, room: number): string[]
     `${keyLabel(a.cf)} then a taxon key: a cf. grain of it (probable, not certain)`,
     `${keyLabel(a.help)} this help · Ctrl-F finish the level · Ctrl-C save and quit`,
   ];
-  const taxa = Object.entries(keymap.keys).map(([k, b]) => `${keyLabel(k)} ${b.taxon}`);
+  const taxa = bindingsOf(keymap).map(([k, b]) => `${keyLabel(k)} ${b.taxon}`);
   const columnWidth = 24;
   const perLine = Math.max(1, Math.floor(width / columnWidth));
   const rowsNeeded = Math.ceil(taxa.length / perLine);

@@ -1,7 +1,6 @@
-import { GROUPS } from '../keymap/groups.js';
 import { resolveKey } from '../keymap/resolve-key.js';
 import type { KeyPress } from '../input/key-press.js';
-import { editLine } from '../input/line-edit.js';
+import { editLine, LINE_FULL_MESSAGE, lineFull } from '../input/line-edit.js';
 import type { Burst, Outcome } from './burst.js';
 import { nextFreeKey } from './free-key.js';
 import { parseNewType, parseNote, type InputMode } from './input-mode.js';
@@ -40,6 +39,7 @@ function noteKey(b: Burst, mode: ModeOf<'note'>, key: KeyPress): Outcome {
   }
   if (next !== 'enter') {
     b.mode = { ...mode, text: next };
+    if (lineFull(mode.text, key)) b.say(LINE_FULL_MESSAGE, 'warning');
     return 'go-on';
   }
   b.mode = null;
@@ -64,9 +64,10 @@ function newTypeKey(b: Burst, mode: ModeOf<'new-type'>, key: KeyPress): Outcome 
   }
   if (next !== 'enter') {
     b.mode = { ...mode, text: next };
+    if (lineFull(mode.text, key)) b.say(LINE_FULL_MESSAGE, 'warning');
     return 'go-on';
   }
-  const parsed = parseNewType(mode.text, GROUPS);
+  const parsed = parseNewType(mode.text, b.state().keymap.groups.map((g) => g.name));
   if (!parsed.ok) {
     b.say(parsed.message, 'warning');
     return 'go-on';
