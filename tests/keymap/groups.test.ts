@@ -97,7 +97,7 @@ describe('groups of the keymap\'s own, with roles', () => {
     expect(calluna?.slice(6, 8)).toEqual(['dwarf shrubs', 'yes']);
     // The marker row has no concentration of its own; the others do.
     expect(long.find((r) => r[5] === 'Eucalyptus (exotic)')?.[LONG_COLUMNS.indexOf('concentration')]).toBeNull();
-    expect(long.find((r) => r[5] === 'Calluna')?.[17]).toBe(2500);
+    expect(long.find((r) => r[5] === 'Calluna')?.[LONG_COLUMNS.indexOf('concentration')]).toBe(2500);
     const wide = wideTable([{ state, source: 'x.jsonl' }]);
     expect(wide.columns.slice(11)).toEqual(['Betula', 'Cyperaceae', 'Poaceae', 'Calluna', 'HdV-18', 'Pre-Quaternary spores', 'Eucalyptus (exotic)', 'Broken grain']);
   });
