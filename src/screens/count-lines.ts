@@ -46,6 +46,26 @@ function promptOf(mode: InputMode | null): string | null {
   return null;
 }
 
+/** Lines a text takes when wrapped at word breaks to `width` columns, as the terminal shows it. */
+export function wrappedHeight(text: string, width: number): number {
+  let lines = 1;
+  let used = 0;
+  for (const word of text.split(' ')) {
+    const n = [...word].length;
+    if (used === 0) used = n;
+    else if (used + 1 + n <= width) used += 1 + n;
+    else {
+      lines++;
+      used = n;
+    }
+    while (used > width) {
+      lines++;
+      used -= width;
+    }
+  }
+  return lines;
+}
+
 /** The status under the panels: read-only reason, a typed line, the last message, or what opening found. */
 export function statusArea(snapshot: Snapshot, width: number): { readonly height: number; readonly line: Line } {
   const prompt = promptOf(snapshot.mode);
@@ -54,8 +74,8 @@ export function statusArea(snapshot: Snapshot, width: number): { readonly height
     : prompt
       ? `${snapshot.message ? `${snapshot.message.text} · ` : ''}${prompt}`
       : (snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '));
-  // The status takes the lines it needs (up to 3; word wrap wastes some of each line).
-  const height = Math.min(3, Math.max(1, Math.ceil([...text].length / Math.max(20, width - 12))));
+  // The status takes the lines its words wrap to (up to 4), so no message is cut mid-sentence.
+  const height = Math.min(4, wrappedHeight(`✗ ${text}`, width));
   // A key that counted nothing flashes: the message in inverse, so it shows at the edge of sight.
   if (!snapshot.readOnly && !prompt && snapshot.message?.tone === 'miss') return { height, line: line(`✗ ${text}`, { tone: 'warning', bold: true, inverse: true }, 'wrap') };
   const tone = snapshot.message?.tone === 'error' || snapshot.readOnly ? 'error' : prompt ? undefined : 'warning';

@@ -179,9 +179,9 @@ describe('the counting screen view', () => {
     expect(typing.height).toBe(2);
     const readOnly = status({ readOnly: 'syncing l.jsonl to disk failed (EIO)', mode: { kind: 'new-type', text: 'Vio' } });
     expect(readOnly.line.spans[0]).toMatchObject({ text: 'READ-ONLY: syncing l.jsonl to disk failed (EIO)', tone: 'error', bold: true });
-    // A long status takes up to three lines, from the panels.
+    // A long status takes up to four lines, from the panels.
     const long = viewOf(state, {}, { message: { text: 'x'.repeat(400), tone: 'info' } });
-    expect(long.status.height).toBe(3);
+    expect(long.status.height).toBe(4);
     expect(mainHeight(long)).toBe(mainHeight(viewOf(state)) - 2);
   });
 

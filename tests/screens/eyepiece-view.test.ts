@@ -99,3 +99,15 @@ describe('small terminals', () => {
     for (const l of compact) expect(l).toMatch(/^(\S{5}\s+\d+[ *]){1,2}$/);
   });
 });
+
+describe('messages at 80 columns', () => {
+  it('the status takes the lines its words wrap to, so a long notice on opening is not cut', async () => {
+    const { statusArea, wrappedHeight } = await import('../../src/screens/count-lines.js');
+    expect(wrappedHeight('aaa bbb ccc', 7)).toBe(2);
+    expect(wrappedHeight('aaa bbb', 7)).toBe(1);
+    const notice = 'a line at the end of the file was torn (the program was stopped while writing it): 212 bytes cut off and kept in km1-084cm.jsonl.cut-20261102T091500Z · took over a stale lock (pid 4242 on lab-pc, not running)';
+    const area = statusArea({ state: demo(), message: null, notice, readOnly: null, closed: false, mode: null, misses: 0 }, 80);
+    expect(area.height).toBe(wrappedHeight(`On opening: ${notice}`, 80));
+    expect(area.height).toBeGreaterThan(3);
+  });
+});
