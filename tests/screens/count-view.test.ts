@@ -182,7 +182,7 @@ describe('the counting screen view', () => {
     // A long status takes up to four lines, from the panels.
     const long = viewOf(state, {}, { message: { text: 'x'.repeat(400), tone: 'info' } });
     expect(long.status.height).toBe(4);
-    expect(mainHeight(long)).toBe(mainHeight(viewOf(state)) - 2);
+    expect(mainHeight(long)).toBe(mainHeight(viewOf(state)) - 3);
   });
 
   it('the help takes the panels’ place, its title inverse', () => {
