@@ -5,7 +5,8 @@ import type { SessionEvent } from '../model/events.js';
 import { fit } from '../text/cells.js';
 import { auditHeading, clockTime, grainStatus, overviewLines, traverseHeading, traverseLine } from './audit-lines.js';
 import { eventsOf, type AuditUi, type AuditView } from './audit-keys.js';
-import { line, truncated, type Line } from './styled-line.js';
+import { line, textOf, truncated, type Line } from './styled-line.js';
+import { wrappedHeight } from './count-lines.js';
 
 /** Everything the audit screen shows, top to bottom, as plain values. */
 export interface AuditScreenView {
@@ -17,6 +18,8 @@ export interface AuditScreenView {
   readonly body: { readonly height: number; readonly clip: boolean; readonly lines: readonly Line[] };
   /** Two lines: the reason being typed, or the last message or warning. */
   readonly prompt: Line;
+  /** Lines the prompt takes: two, or three for a message that needs them (the event list gives one up). */
+  readonly promptHeight: number;
   readonly keys: Line;
 }
 
@@ -99,12 +102,16 @@ export function auditScreenView(read: AuditRead, ui: AuditUi, size: { columns: n
   const body = ui.overview
     ? { height: detailRoom + tableRoom + 3, clip: false, lines: [line('Sittings, flags and corrections (f: back)', { bold: true }), ...overviewLines(read, width).slice(0, detailRoom + tableRoom + 2).map((l) => truncated(l))] }
     : { height: detailRoom + 2, clip: true, lines: traverseDetail(traverse, ui, detailRoom, statusOf) };
+  const prompt = promptLine(read, ui);
+  const promptHeight = Math.max(2, Math.min(3, wrappedHeight(textOf(prompt), width)));
+  const extra = promptHeight - 2;
   return {
     width,
     height,
     top: [...auditHeading(read), ...(ui.overview ? [] : traverseTable(traverses, ui, tableRoom, width))],
-    body,
-    prompt: promptLine(read, ui),
+    body: { ...body, height: body.height - extra, lines: body.lines.slice(0, body.height - extra) },
+    prompt,
+    promptHeight,
     keys: truncated(ui.asking ? (ui.message ?? 'Enter records the correction · Esc cancels') : '↑↓ select · Tab traverses/grains · v void · r restore · f flags · q quit', { tone: 'dim' }),
   };
 }

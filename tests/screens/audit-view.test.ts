@@ -148,3 +148,14 @@ describe('the scroll window', () => {
     expect(scrollWindow(items, 9, 4)).toEqual({ shown: [6, 7, 8, 9], offset: 6 });
   });
 });
+
+describe('the audit prompt at 80 columns', () => {
+  it('a long refusal (the lock holder, the lock file) takes a third line instead of being cut; the event list gives that line up', () => {
+    const message = `not recorded: /home/analyst/cores/kestrel-mere/km-1/levels/km1-084cm.jsonl is already open in pid 4242 (exine count) on lab-pc-2; close it there first (lock file: km1-084cm.jsonl.lock)`;
+    const short = auditScreenView(readOf(LEVEL), START_UI, { columns: 80, rows: 24 });
+    const long = auditScreenView(readOf(LEVEL), ui({ message }), { columns: 80, rows: 24 });
+    expect([short.promptHeight, long.promptHeight]).toEqual([2, 3]);
+    expect(long.body.height).toBe(short.body.height - 1);
+    expect(long.body.lines.length).toBeLessThanOrEqual(long.body.height);
+  });
+});
