@@ -69,7 +69,9 @@ function badge(s: Style, cx: number, cy: number, r: number): string {
 export function wrapName(name: string, fit: number, lines: number): string[] {
   const out: string[] = [];
   let current = '';
-  for (const word of name.split(/\s+/).filter(Boolean)) {
+  // A word too long for the key may break after a hyphen ("Potentilla-" "type").
+  const words = name.split(/\s+/).filter(Boolean).flatMap((w) => ([...w].length > fit && w.includes('-') ? w.split(/(?<=-)/) : [w]));
+  for (const word of words) {
     const w = [...word].length > fit ? `${[...word].slice(0, fit - 1).join('')}…` : word;
     if (!current) current = w;
     else if ([...`${current} ${w}`].length <= fit) current = `${current} ${w}`;
@@ -106,7 +108,7 @@ function keyCap(keymap: Keymap, st: Map<string, Style>, k: GridKey, ox: number, 
     const inner = s.role === 'marker' ? `<rect x="${n(x + 0.9)}" y="${n(y + 0.9)}" width="${n(w - 1.8)}" height="${n(h - 1.8)}" rx="1.2" fill="none" stroke="${s.colour}" stroke-width="0.3"/>` : '';
     const r = u * 0.085;
     // A long single word ("Amaranthaceae") gets smaller letters before it is cut.
-    const longest = Math.max(...b.taxon.split(/\s+/).map((x) => [...x].length));
+    const longest = Math.max(...b.taxon.split(/\s+|(?<=-)/).map((x) => [...x].length));
     const size = Math.max(u * 0.095, Math.min(u * 0.13, (w - 2 * pad) / (CHAR_EM * longest)));
     const fit = Math.max(4, Math.floor((w - 2 * pad) / (CHAR_EM * size)));
     const room = Math.max(1, Math.floor((h - pad * 2 - labelSize * 1.05) / (size * 1.15)));
