@@ -182,5 +182,6 @@ describe('strict checks', () => {
   it('a space key is drawn and listed as "Space"', () => {
     const k = ok('{"name":"x","keys":{" ":{"taxon":"Pinus","group":"trees"},"q":{"taxon":"Quercus","group":"trees"}}}');
     expect(keyLabel(k.order[0] ?? null)).toBe('Space');
+    expect([keyLabel('\u2002'), keyLabel('\u00a0'), keyLabel('q')]).toEqual(['U+2002', 'NBSP', 'q']);
   });
 });
