@@ -185,3 +185,9 @@ describe('strict checks', () => {
     expect([keyLabel('\u2002'), keyLabel('\u00a0'), keyLabel('q')]).toEqual(['U+2002', 'NBSP', 'q']);
   });
 });
+
+describe('groups written as a list', () => {
+  it('a person writes "groups" as name → role; the list form is only a session copy\'s', () => {
+    expect(err('{"name":"x","groups":[{"name":"NPP","role":"outside"}],"keys":{"q":{"taxon":"Quercus","group":"trees"}}}')).toMatch(/"groups" must be an object of group name → role/);
+  });
+});
