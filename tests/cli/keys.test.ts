@@ -33,3 +33,11 @@ describe('exine keys new, edit and --card', () => {
     expect(oneLine(await runExine(['keys', 'keypad', '--card', 'c.svg', '--paper', 'a3'], dir))).toMatch(/--paper must be a4 or letter, not "a3"/);
   });
 });
+
+describe('exine keys new in a folder that cannot take it', () => {
+  it('says so before anything is typed', async () => {
+    const dir = tempDir();
+    const run = await runExine(['keys', 'new', 'no/such/mire.json'], dir);
+    expect([run.code, oneLine(run)]).toEqual([1, 'exine: cannot write no/such/mire.json: its folder does not exist']);
+  });
+});
