@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { extname, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
+import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { addTypesToKeymap, type AddedType } from '../../keymap/add-types.js';
 import { drawLayout } from '../../keymap/draw-layout.js';
@@ -57,6 +58,8 @@ export async function keysCommand(args: string[], io: Io): Promise<number> {
   if (isBundledKeymap(path)) {
     throw new UsageError(`exine keys: ${name} is a bundled keymap and is never changed; copy it (cp ${path} my-keymap.json) and add the types to the copy`);
   }
+  // The keymap is rewritten on purpose; the session it learns from must never be.
+  refuseOwnInput('keys', path, [from], io.cwd);
   loadKeymap(name, io.cwd);
   const types = await addedTypesOf(from, io.cwd);
   if (types.length === 0) {

@@ -3,7 +3,7 @@ import { UsageError } from '../../errors.js';
 import { levelSummary, type LevelSummary } from '../../export/level-summary.js';
 import { readLevel } from '../../session/session-files.js';
 import { ci, fit, plural, pct, right } from '../../text/cells.js';
-import type { Io } from '../io.js';
+import { terminalJson, type Io } from '../io.js';
 import { parseFlags, positiveInteger } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -83,6 +83,6 @@ export function summaryCommand(args: string[], io: Io): number {
   const { state, warnings } = readLevel(resolve(io.cwd, positionals[0] as string));
   for (const w of warnings) io.stderr.write(`exine: ${w}\n`);
   const summary = levelSummary(state, rarefyAt);
-  io.stdout.write(values.json ? `${JSON.stringify(summary, null, 2)}\n` : `${textReport(summary).join('\n')}\n`);
+  io.stdout.write(values.json ? `${terminalJson(JSON.stringify(summary, null, 2))}\n` : `${textReport(summary).join('\n')}\n`);
   return 0;
 }
