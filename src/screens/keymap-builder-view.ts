@@ -1,5 +1,6 @@
 import { drawGrid } from '../keymap/draw-layout.js';
 import { groupLetters } from '../keymap/group-labels.js';
+import { onKeypad } from '../keymap/key-grid.js';
 import { keyLabel } from '../keymap/keymap.js';
 import { fit } from '../text/cells.js';
 import { matchingGroups, ROLE_CHOICES, type BuilderUi } from './keymap-builder-keys.js';
@@ -10,7 +11,7 @@ export function builderLines(ui: BuilderUi, file: string, columns: number, rows:
   const { keymap, step } = ui;
   const letters = groupLetters(keymap.groups.map((g) => g.name));
   // Narrow terminals get narrower key cells.
-  const drawing = keymap.order.length ? drawGrid(keymap, columns < 100 ? 5 : 7) : ['(no keys yet: the keyboard is drawn as they are added)', ''];
+  const drawing = keymap.order.length ? drawGrid(keymap, onKeypad(keymap) ? Math.min(12, Math.floor(columns / 4) - 1) : columns < 100 ? 5 : 7) : ['(no keys yet: the keyboard is drawn as they are added)', ''];
   const groups = keymap.groups.map((g) => `${letters.get(g.name)} ${g.name}`).join(' · ');
   const head = [
     truncated(`Keymap ${file} · ${keymap.order.length} taxa · Enter on an empty taxon (or Ctrl-C) saves and ends`, { bold: true, inverse: true }),
