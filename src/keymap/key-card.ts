@@ -111,7 +111,9 @@ function keyCap(keymap: Keymap, st: Map<string, Style>, k: GridKey, ox: number, 
     const longest = Math.max(...b.taxon.split(/\s+|(?<=-)/).map((x) => [...x].length));
     const size = Math.max(u * 0.095, Math.min(u * 0.13, (w - 2 * pad) / (CHAR_EM * longest)));
     const fit = Math.max(4, Math.floor((w - 2 * pad) / (CHAR_EM * size)));
-    const room = Math.max(1, Math.floor((h - pad * 2 - labelSize * 1.05) / (size * 1.15)));
+    // A taxon taken out of a group in the sum says so at the foot of its key.
+    const out = b.inSum === false;
+    const room = Math.max(1, Math.floor((h - pad * 2 - labelSize * 1.05 - (out ? size * 1.3 : 0)) / (size * 1.15)));
     const lines = wrapName(b.taxon, fit, Math.min(room, 3));
     const firstLine = y + pad + labelSize * 1.05 + size;
     return [
@@ -121,6 +123,7 @@ function keyCap(keymap: Keymap, st: Map<string, Style>, k: GridKey, ox: number, 
       labelText,
       badge(s, x + w - pad - r * 1.1, y + pad + r * 1.1, r),
       ...lines.map((l, i) => text(x + pad, firstLine + i * size * 1.15, size, l, ' class="taxon"')),
+      out ? text(x + pad, y + h - pad - size * 0.3, size * 0.9, 'not in sum', ' font-style="italic"') : '',
       '</g>',
     ].join('');
   }
@@ -172,7 +175,7 @@ export function keyCardSvg(keymap: Keymap, paper: Paper = 'a4'): string {
     ly += legendLine;
   }
   if (grid.offGrid.length) {
-    const also = grid.offGrid.map((k) => `${keyLabel(k)} ${keymap.keys[k]?.taxon ?? ''}`).join(' · ');
+    const also = grid.offGrid.map((k) => `${keyLabel(k)} ${keymap.keys[k]?.taxon ?? ''} (${st.get(keymap.keys[k]?.group ?? '')?.letter ?? '?'})`).join(' · ');
     for (const l of wrapName(`also: ${also}`, maxChars, 4)) {
       legend.push(text(lx, ly, size, l));
       ly += legendLine;
