@@ -41,7 +41,7 @@ function repairsExactly(root: string, bytes: Buffer, goodBytes: number, goodGrai
  * The damage a crash or a disk does, measured on a level of 60 grains: the last three
  * lines cut at every byte, NUL padding after each of them, and random single-bit flips.
  */
-export function measureDamage(flips: number, seed = 3): DamageFigures {
+export function measureDamage(flips: number, seed = 3): DamageFigures & { lines: number } {
   const payloads = [...baseLevel(), ...Array.from({ length: 50 }, () => ({ type: 'grain' as const, taxon: 'Quercus', traverse: 2, key: 'q' }))];
   const bytes = chained(payloads);
   const starts: number[] = [0];
@@ -49,7 +49,7 @@ export function measureDamage(flips: number, seed = 3): DamageFigures {
   const lineStarts = starts.slice(0, -1);
   const grainsBefore = (line: number) => payloads.slice(0, line).filter((p) => p.type === 'grain').length - payloads.slice(0, line).filter((p) => p.type === 'undo').length;
   const root = mkdtempSync(join(tmpdir(), 'exine-bench-damage-'));
-  const f: DamageFigures = { tornCases: 0, tornRepaired: 0, nulCases: 0, nulRepaired: 0, flips: 0, flipsOnRightLine: 0, flipsUnseen: 0 };
+  const f: DamageFigures & { lines: number } = { lines: payloads.length,  tornCases: 0, tornRepaired: 0, nulCases: 0, nulRepaired: 0, flips: 0, flipsOnRightLine: 0, flipsUnseen: 0 };
   try {
     const n = lineStarts.length;
     for (let line = n - 3; line < n; line++) {
@@ -87,7 +87,7 @@ export function benchDamage(flips = Number(process.env.EXINE_FLIPS ?? 1000)): st
   const f = measureDamage(flips);
   const s = ((Date.now() - started) / 1000).toFixed(0);
   return [
-    `(i) damage on a level of 63 lines (${s} s; EXINE_FLIPS sets the bit flips)`,
+    `(i) damage on a level of ${f.lines} lines (${s} s; EXINE_FLIPS sets the bit flips)`,
     `    last three lines cut at every byte: ${f.tornRepaired} of ${f.tornCases} repaired, the cut bytes kept exactly in a backup   (goal: all)`,
     `    NUL padding after each of them:     ${f.nulRepaired} of ${f.nulCases} repaired                                            (goal: all)`,
     `    single-bit flips anywhere:          ${f.flipsOnRightLine} of ${f.flips} found on the line they hit, ${f.flipsUnseen} taken for intact   (goal: all, 0)`,
