@@ -12,6 +12,7 @@ import { benchStatsRecompute } from './stats-recompute.js';
 import { benchResume } from './resume.js';
 import { benchTallyPath } from './tally-path.js';
 import { benchTestSuite } from './test-suite.js';
+import { benchAuditScale, benchStartUp } from './start-up.js';
 
 type Section = { name: string; run: () => string[] | Promise<string[]>; optIn?: boolean };
 
@@ -27,6 +28,8 @@ const SECTIONS: Section[] = [
   { name: 'faults', run: () => benchFaults(Number(process.env.EXINE_FAULT_CASES ?? 2000)), optIn: true },
   { name: 'damage', run: () => benchDamage() },
   { name: 'kill', run: () => benchKill(Number(process.env.EXINE_KILL_ROUNDS ?? 1000)), optIn: true },
+  { name: 'start-up', run: benchStartUp },
+  { name: 'audit-scale', run: benchAuditScale },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];
 

@@ -1,4 +1,3 @@
-import { GROUPS } from '../keymap/groups.js';
 import type { KeyPress } from '../input/key-press.js';
 import { editLine, LINE_FULL_MESSAGE, lineFull } from '../input/line-edit.js';
 import type { Burst, Outcome } from './burst.js';
@@ -67,7 +66,7 @@ function newTypeKey(b: Burst, mode: ModeOf<'new-type'>, key: KeyPress): Outcome 
     if (lineFull(mode.text, key)) b.say(LINE_FULL_MESSAGE, 'warning');
     return 'go-on';
   }
-  const parsed = parseNewType(mode.text, GROUPS);
+  const parsed = parseNewType(mode.text, b.state().keymap.groups.map((g) => g.name));
   if (!parsed.ok) {
     b.say(parsed.message, 'warning');
     return 'go-on';

@@ -1,7 +1,6 @@
 import { resolve } from 'node:path';
 import { UsageError } from '../../errors.js';
 import { levelSummary, type LevelSummary } from '../../export/level-summary.js';
-import { GROUPS } from '../../keymap/groups.js';
 import { readLevel } from '../../session/session-files.js';
 import { ci, fit, plural, pct, right } from '../../text/cells.js';
 import { terminalJson, type Io } from '../io.js';
@@ -34,7 +33,7 @@ function textReport(s: LevelSummary): string[] {
     `${where ? `${where} · ` : ''}level ${s.level}${s.depth === null ? '' : ` (depth ${s.depth})`} · slide ${s.slide ?? '–'}${s.analyst ? ` · ${s.analyst}` : ''}`,
     s.finishedAt ? `finished ${s.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
     `pollen sum ${s.pollenSum} · ${plural(s.grains, 'grain')} · ${plural(s.types, 'type')} in the sum · ${plural(s.traverses, 'traverse')} · ${plural(s.sittings, 'sitting')}${s.voided ? ` · ${plural(s.voided, 'grain')} voided in the audit` : ''}`,
-    `groups: ${GROUPS.filter((g) => s.groups[g] > 0 || s.sumGroups.includes(g))
+    `groups: ${s.groupOrder.filter((g) => (s.groups[g] ?? 0) > 0 || s.sumGroups.includes(g))
       .map((g) => `${g} ${s.groups[g]}${s.sumGroups.includes(g) ? '' : '*'}`)
       .join(' · ')}`,
     '',
