@@ -91,10 +91,11 @@ async function killRound(dir: string, file: string, fresh: boolean, random: Rand
       const n = between(random, 1, 300);
       proc.stdin.write(Array.from({ length: n }, () => KEYS[between(random, 0, KEYS.length - 1)]).join(''));
       keys += n;
-      await sleep(between(random, 0, 40));
+      await sleep(between(random, 0, 250));
     }
   })();
-  await sleep(between(random, 0, 250));
+  // Any moment: before the first key is handled, mid-burst, mid-write, or after the keys are all drawn.
+  await sleep(between(random, 0, 1500));
   killed = true;
   process.kill(pid, 'SIGKILL');
   await typing;
