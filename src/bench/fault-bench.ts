@@ -30,6 +30,7 @@ export async function benchFaults(cases: number, seed = Number(process.env.EXINE
         const v = await runFaultCase(c, root, child);
         addVerdict(t, v, child);
         addVerdict(total, v, child);
+        if (i % 250 === 0) process.stderr.write(`faults: ${name} ${i} cases, ${total.stackTraces + total.notOneLine + total.hangs + total.unreadable + total.rawControl} failures so far\n`);
       }
       lines.push(`    ${name.padEnd(14)} ${row(t)}`);
     }

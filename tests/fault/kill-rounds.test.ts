@@ -11,6 +11,6 @@ describe('random kill -9 of exine count in a real pty', () => {
     expect(f).toMatchObject({ rounds: 2, files: 1, lost: 0, unreadable: 0, notResumed: 0 });
     expect(f.keysSent).toBeGreaterThan(0);
     expect(f.onDisk).toBeGreaterThanOrEqual(f.shown);
-    expect(readdirSync(dir).filter((n) => n.endsWith('.jsonl'))).toEqual(['kill-0.jsonl']);
+    expect(readdirSync(dir).filter((n) => n.endsWith('.jsonl'))).toEqual(['kill-0-0.jsonl']);
   });
 });
