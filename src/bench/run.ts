@@ -10,6 +10,7 @@ import { benchResume } from './resume.js';
 import { benchTallyPath } from './tally-path.js';
 import { benchTestSuite } from './test-suite.js';
 import { benchAuditScale, benchStartUp } from './start-up.js';
+import { benchKeyFrame } from './key-frame.js';
 
 type Section = { name: string; run: () => string[] | Promise<string[]>; optIn?: boolean };
 
@@ -24,6 +25,7 @@ const SECTIONS: Section[] = [
   { name: 'lock-race', run: () => benchLockRace(Number(process.env.EXINE_LOCK_ROUNDS ?? 1000)) },
   { name: 'start-up', run: benchStartUp },
   { name: 'audit-scale', run: benchAuditScale },
+  { name: 'key-frame', run: () => benchKeyFrame() },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];
 

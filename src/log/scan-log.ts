@@ -36,9 +36,9 @@ export interface LogScan {
 
 type LineCheck = { ok: true; event: ParsedEvent; hash: string; keymap?: Keymap } | { ok: false; problem: Problem; message: string };
 
-function checkLine(line: string, lineNo: number, prevHash: string): LineCheck {
+function checkLine(line: string, lineNo: number, prevHash: string, bytes?: Buffer): LineCheck {
   const bad = (problem: Problem, message: string): LineCheck => ({ ok: false, problem, message: `line ${lineNo} ${message}` });
-  const hashes = lineHashes(line);
+  const hashes = lineHashes(line, bytes);
   if (!hashes && lineNo === 1 && !line.includes('"hash"')) {
     return bad('no-hash', 'is not an exine session line: this is not a session file, or its first line was replaced');
   }
@@ -65,8 +65,8 @@ function checkLine(line: string, lineNo: number, prevHash: string): LineCheck {
 
 const PHYSICAL: ReadonlySet<Problem> = new Set(['no-hash', 'hash-mismatch', 'not-json']);
 
-function allNul(text: string, from: number): boolean {
-  for (let i = from; i < text.length; i++) if (text.charCodeAt(i) !== 0) return false;
+function allNul(buf: Buffer, from: number): boolean {
+  for (let i = from; i < buf.length; i++) if (buf[i] !== 0) return false;
   return true;
 }
 
@@ -80,12 +80,12 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
   let keymap: Keymap | null = null;
   let lastHash = '';
   const refs = new References();
-  // Work on the decoded text (one decode, as a plain reader would); count bytes beside it
-  // for the offsets a repair cuts at. In pure ASCII a character is a byte.
-  const text = buf.toString('utf8');
+  // Decode one line at a time rather than the whole file, so the file is held once (as bytes).
+  // A newline byte is never part of a multi-byte character, so the lines are the same either way.
+  // Pure ASCII decodes faster as latin1 (the same characters); valid UTF-8 is hashed from its bytes.
   const ascii = isAscii(buf);
   const utf8 = ascii || isUtf8(buf);
-  let pos = 0;
+  const encoding = ascii ? 'latin1' : 'utf8';
   let bytePos = 0;
   let lineNo = 0;
   let valid = 0;
@@ -102,17 +102,17 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
   if (buf.length === 0) {
     return result(null, { line: 1, offset: 0, problem: 'empty', message: 'the file is empty: it holds no level (an older exine stopped while creating it); delete it and count the level again' });
   }
-  while (pos < text.length) {
+  while (bytePos < buf.length) {
     lineNo++;
-    const nl = text.indexOf('\n', pos);
+    const nl = buf.indexOf(10, bytePos);
     if (nl === -1) {
-      const damage: Damage = allNul(text, pos)
+      const damage: Damage = allNul(buf, bytePos)
         ? { line: lineNo, offset: bytePos, problem: 'nul-padding', message: `NUL bytes after line ${lineNo - 1} (typical of a power cut)` }
         : { line: lineNo, offset: bytePos, problem: 'torn', message: `line ${lineNo} is incomplete (the program stopped while writing it)` };
       return lineNo === 1 ? result(null, { ...damage, message: `${damage.message}; the level was never created` }) : result(damage, null);
     }
-    const line = text.slice(pos, nl);
-    let check = checkLine(line, lineNo, lastHash);
+    const line = buf.toString(encoding, bytePos, nl);
+    let check = checkLine(line, lineNo, lastHash, utf8 ? buf.subarray(bytePos, nl) : undefined);
     // Bytes that are not UTF-8 decode as U+FFFD and so fail the hash: say what they are.
     if (!check.ok && check.problem === 'hash-mismatch' && !utf8 && line.includes('\uFFFD')) {
       check = { ok: false, problem: 'hash-mismatch', message: `line ${lineNo} is not valid UTF-8: its bytes were changed after it was written` };
@@ -121,7 +121,7 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
       const damage: Damage = { line: lineNo, offset: bytePos, problem: check.problem, message: check.message };
       // Only physical damage of the very last line is cut off: a line whose own hash holds was
       // written whole, so a wrong seq or chain there is an edit, not a crash.
-      const repairable = lineNo > 1 && allNul(text, nl + 1) && PHYSICAL.has(check.problem);
+      const repairable = lineNo > 1 && allNul(buf, nl + 1) && PHYSICAL.has(check.problem);
       return repairable ? result(damage, null) : result(null, damage);
     }
     const dangling = refs.check(check.event);
@@ -131,8 +131,7 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
     if (onEvent) onEvent(check.event, keymap as Keymap);
     else events.push(check.event);
     lastHash = check.hash;
-    pos = nl + 1;
-    bytePos += (ascii ? line.length : Buffer.byteLength(line)) + 1;
+    bytePos = nl + 1;
   }
   return result(null, null);
 }
