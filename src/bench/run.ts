@@ -3,6 +3,7 @@
 import { cpus } from 'node:os';
 import { benchCraftedInput } from './crafted-input.js';
 import { benchFirstFrame } from './first-frame.js';
+import { benchKill } from './kill-bench.js';
 import { benchLockRace } from './lock-race-bench.js';
 import { benchOptionalStopping } from './optional-stopping.js';
 import { benchStatsRecompute } from './stats-recompute.js';
@@ -26,6 +27,7 @@ const SECTIONS: Section[] = [
   { name: 'start-up', run: benchStartUp },
   { name: 'audit-scale', run: benchAuditScale },
   { name: 'key-frame', run: () => benchKeyFrame() },
+  { name: 'kill', run: () => benchKill(Number(process.env.EXINE_KILL_ROUNDS ?? 1000)), optIn: true },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];
 

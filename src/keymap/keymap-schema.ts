@@ -6,9 +6,12 @@ export const keymapShape = z.object({
   name: z.string().trim().min(1),
   keys: z.record(
     z.string(),
-    z.object({ taxon: z.string().trim().min(1), group: z.string() }).loose(),
+    z.object({ taxon: z.string().trim().min(1), group: z.string(), inSum: z.literal(false).optional() }).loose(),
   ),
   // null: the action has no key (a keymap copied into a session file says so for an action whose default key is a taxon's).
   actions: z.record(z.string(), z.string().nullable()).optional(),
   sum: z.array(z.string()).optional(),
+  groups: z.unknown().optional(),
+  // Only in a copy held by a session file: the key order, which the "keys" object cannot keep for digits.
+  order: z.array(z.string()).optional(),
 }).loose();

@@ -1,4 +1,3 @@
-import { GROUPS } from '../keymap/groups.js';
 import { isPrintableKey } from '../keymap/parse-keymap.js';
 import { RULE_NAMES } from '../rules/rule-set.js';
 
@@ -70,7 +69,7 @@ export const HAND_CHECKS: ReadonlyMap<string, Check> = new Map<string, Check>([
   ['rules-met', (v) => stamp(v) && count(v.sum) && count(v.grains) && Array.isArray(v.met) && v.met.every(oneOf(RULE_NAMES))],
   ['rules-unmet', (v) => stamp(v) && count(v.sum) && count(v.grains)],
   ['note', (v) => stamp(v) && str(v.text) && orNull(posInt)(v.grain) && orNull((s) => object(s) && num(s.x) && num(s.y))(v.stage)],
-  ['taxon', (v) => stamp(v) && trimmed(v.taxon) && oneOf(GROUPS)(v.group) && str(v.key) && isPrintableKey(v.key) && v.key !== ' '],
+  ['taxon', (v) => stamp(v) && trimmed(v.taxon) && trimmed(v.group) && str(v.key) && isPrintableKey(v.key) && v.key !== ' '],
   ['void', (v) => stamp(v) && orNull(posInt)(v.grain) && orNull(posInt)(v.traverse) && str(v.reason) && (v.grain === null) !== (v.traverse === null)],
   ['restore', (v) => stamp(v) && posInt(v.of) && str(v.reason)],
   ['repair', (v) => stamp(v) && str(v.damage) && posInt(v.line) && count(v.cutBytes) && str(v.backup)],

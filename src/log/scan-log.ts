@@ -5,13 +5,15 @@ import type { ParsedEvent } from './event-schema.js';
 import { lineHashes } from './line-codec.js';
 
 export type { Problem } from './check-event.js';
+/** What is wrong with a line: a content problem, or a line longer than the reader reads. */
+export type ScanProblem = Problem | 'too-long';
 
 export interface Damage {
   /** 1-based line number where the damage starts. */
   readonly line: number;
   /** Byte offset where that line starts. */
   readonly offset: number;
-  readonly problem: Problem;
+  readonly problem: ScanProblem;
   /** What is wrong, in words, naming the line. */
   readonly message: string;
 }
@@ -63,7 +65,22 @@ function checkLine(line: string, lineNo: number, prevHash: string, bytes?: Buffe
   return { ok: true, event: content.event, hash: hashes.actual, ...(content.keymap ? { keymap: content.keymap } : {}) };
 }
 
-const PHYSICAL: ReadonlySet<Problem> = new Set(['no-hash', 'hash-mismatch', 'not-json']);
+const PHYSICAL: ReadonlySet<ScanProblem> = new Set(['no-hash', 'hash-mismatch', 'not-json']);
+
+/** What the reader holds at once. Injectable so a test can reach the limits without writing a gigabyte. */
+export interface ScanLimits {
+  /** Longest line read, in bytes: far above any line exine writes (a keymap of thousands of types in line 1). */
+  readonly maxLineBytes: number;
+  /**
+   * Bytes decoded to text at once. The reader now decodes one line at a time (never more than
+   * maxLineBytes, far below V8's string limit), so this no longer changes anything.
+   */
+  readonly blockBytes: number;
+}
+
+export const SCAN_LIMITS: ScanLimits = { maxLineBytes: 16 * 1024 * 1024, blockBytes: 64 * 1024 * 1024 };
+
+const mib = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MiB`;
 
 function allNul(buf: Buffer, from: number): boolean {
   for (let i = from; i < buf.length; i++) if (buf[i] !== 0) return false;
@@ -73,9 +90,11 @@ function allNul(buf: Buffer, from: number): boolean {
 /**
  * Read a whole session file's bytes: validate every line and the chain, and
  * classify any damage. With `onEvent`, valid events are handed over one by one
- * and not kept, which spares the garbage collector on a long session.
+ * and not kept, which spares the garbage collector on a long session. The bytes
+ * are decoded line by line, so a file of any size reads without one giant string
+ * and is held once.
  */
-export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keymap) => void): LogScan {
+export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keymap) => void, limits: ScanLimits = SCAN_LIMITS): LogScan {
   const events: ParsedEvent[] = [];
   let keymap: Keymap | null = null;
   let lastHash = '';
@@ -102,15 +121,24 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
   if (buf.length === 0) {
     return result(null, { line: 1, offset: 0, problem: 'empty', message: 'the file is empty: it holds no level (an older exine stopped while creating it); delete it and count the level again' });
   }
+  const unfinished = (): LogScan => {
+    const damage: Damage = allNul(buf, bytePos)
+      ? { line: lineNo, offset: bytePos, problem: 'nul-padding', message: `NUL bytes after line ${lineNo - 1} (typical of a power cut)` }
+      : { line: lineNo, offset: bytePos, problem: 'torn', message: `line ${lineNo} is incomplete (the program stopped while writing it)` };
+    return lineNo === 1 ? result(null, { ...damage, message: `${damage.message}; the level was never created` }) : result(damage, null);
+  };
+  const tooLong = (): LogScan =>
+    result(null, {
+      line: lineNo,
+      offset: bytePos,
+      problem: 'too-long',
+      message: `line ${lineNo} is longer than ${mib(limits.maxLineBytes)}, far more than any line exine writes: this is not a session file exine can read`,
+    });
   while (bytePos < buf.length) {
     lineNo++;
     const nl = buf.indexOf(10, bytePos);
-    if (nl === -1) {
-      const damage: Damage = allNul(buf, bytePos)
-        ? { line: lineNo, offset: bytePos, problem: 'nul-padding', message: `NUL bytes after line ${lineNo - 1} (typical of a power cut)` }
-        : { line: lineNo, offset: bytePos, problem: 'torn', message: `line ${lineNo} is incomplete (the program stopped while writing it)` };
-      return lineNo === 1 ? result(null, { ...damage, message: `${damage.message}; the level was never created` }) : result(damage, null);
-    }
+    if (nl === -1) return buf.length - bytePos > limits.maxLineBytes && !allNul(buf, bytePos) ? tooLong() : unfinished();
+    if (nl - bytePos > limits.maxLineBytes) return tooLong();
     const line = buf.toString(encoding, bytePos, nl);
     let check = checkLine(line, lineNo, lastHash, utf8 ? buf.subarray(bytePos, nl) : undefined);
     // Bytes that are not UTF-8 decode as U+FFFD and so fail the hash: say what they are.

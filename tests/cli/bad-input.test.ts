@@ -68,12 +68,12 @@ describe('bad input gets one clear line, the right exit code, and changes nothin
   });
 
   it('a session file from a future format version is refused by every command, untouched', async () => {
-    const dir = folderWith({ 'future.jsonl': sessionText([{ ...openPayload(), format: 3 }, grain('Alnus')]) });
+    const dir = folderWith({ 'future.jsonl': sessionText([{ ...openPayload(), format: 4 }, grain('Alnus')]) });
     const before = snapshot(dir);
     for (const args of [['count', 'future.jsonl'], ['summary', 'future.jsonl'], ['export', 'future.jsonl'], ['verify', 'future.jsonl']]) {
       const run = await runExine(args, dir);
       expect(run.code, args.join(' ')).toBe(1);
-      expect(oneLine(run)).toMatch(/line 1 is session format 3, written by a newer exine \(this one reads format 2\); update exine/);
+      expect(oneLine(run)).toMatch(/line 1 is session format 4, written by a newer exine \(this one reads format 3\); update exine/);
     }
     expect(snapshot(dir)).toEqual(before);
   });

@@ -135,7 +135,7 @@ describe('hand checks of session lines', () => {
 });
 
 describe('the hand check of a keymap shape', () => {
-  const binding = fc.oneof(fc.record({ taxon: anyValue, group: anyValue, later: anyValue }, { requiredKeys: [] }), anyValue);
+  const binding = fc.oneof(fc.record({ taxon: anyValue, group: anyValue, inSum: fc.oneof(fc.constant(false), anyValue), later: anyValue }, { requiredKeys: [] }), anyValue);
   const keymap = fc.record(
     {
       name: anyValue,
@@ -143,6 +143,7 @@ describe('the hand check of a keymap shape', () => {
       actions: fc.oneof(fc.dictionary(fc.constantFrom('undo', 'help', 'x'), fc.oneof(text, fc.constant(null), number), { maxKeys: 2 }), anyValue),
       sum: fc.oneof(fc.array(fc.oneof(text, number), { maxLength: 3 }), anyValue),
       groups: anyValue,
+      order: fc.oneof(fc.array(fc.oneof(text, number), { maxLength: 3 }), anyValue),
     },
     { requiredKeys: [] },
   );

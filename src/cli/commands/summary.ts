@@ -1,10 +1,9 @@
 import { resolve } from 'node:path';
 import { UsageError } from '../../errors.js';
 import { levelSummary, type LevelSummary } from '../../export/level-summary.js';
-import { GROUPS } from '../../keymap/groups.js';
 import { readLevel } from '../../session/session-files.js';
 import { ci, fit, plural, pct, right } from '../../text/cells.js';
-import type { Io } from '../io.js';
+import { terminalJson, type Io } from '../io.js';
 import { parseFlags, positiveInteger } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -34,7 +33,7 @@ function textReport(s: LevelSummary): string[] {
     `${where ? `${where} · ` : ''}level ${s.level}${s.depth === null ? '' : ` (depth ${s.depth})`} · slide ${s.slide ?? '–'}${s.analyst ? ` · ${s.analyst}` : ''}`,
     s.finishedAt ? `finished ${s.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
     `pollen sum ${s.pollenSum} · ${plural(s.grains, 'grain')} · ${plural(s.types, 'type')} in the sum · ${plural(s.traverses, 'traverse')} · ${plural(s.sittings, 'sitting')}${s.voided ? ` · ${plural(s.voided, 'grain')} voided in the audit` : ''}`,
-    `groups: ${GROUPS.filter((g) => s.groups[g] > 0 || s.sumGroups.includes(g))
+    `groups: ${s.groupOrder.filter((g) => (s.groups[g] ?? 0) > 0 || s.sumGroups.includes(g))
       .map((g) => `${g} ${s.groups[g]}${s.sumGroups.includes(g) ? '' : '*'}`)
       .join(' · ')}`,
     '',
@@ -84,6 +83,6 @@ export function summaryCommand(args: string[], io: Io): number {
   const { state, warnings } = readLevel(resolve(io.cwd, positionals[0] as string));
   for (const w of warnings) io.stderr.write(`exine: ${w}\n`);
   const summary = levelSummary(state, rarefyAt);
-  io.stdout.write(values.json ? `${JSON.stringify(summary, null, 2)}\n` : `${textReport(summary).join('\n')}\n`);
+  io.stdout.write(values.json ? `${terminalJson(JSON.stringify(summary, null, 2))}\n` : `${textReport(summary).join('\n')}\n`);
   return 0;
 }
