@@ -89,6 +89,8 @@ export const HAND_CHECKS: ReadonlyMap<string, Check> = new Map<string, Check>([
       text(v.core) &&
       text(v.slide) &&
       text(v.analyst) &&
+      // z.unknown() still wants the field there; its content is checked as a keymap.
+      'keymap' in v &&
       rules(v.rules) &&
       spike(v.spike),
   ],
