@@ -1,5 +1,5 @@
-import { existsSync, readFileSync } from 'node:fs';
-import { basename, extname, resolve } from 'node:path';
+import { accessSync, constants, existsSync, readFileSync } from 'node:fs';
+import { basename, dirname, extname, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { emptyKeymapText } from '../../keymap/edit-keymap-text.js';
@@ -55,6 +55,12 @@ export async function keysBuild(mode: 'new' | 'edit', args: string[], io: Io): P
       throw new ExineError(`keymap ${file}: cannot be read (${(error as NodeJS.ErrnoException).code ?? String(error)})`);
     }
   }
+  // Found out now, not after forty taxa have been typed.
+  try {
+    accessSync(dirname(path), constants.W_OK);
+  } catch (error) {
+    throw new ExineError(`cannot write ${file}: its folder ${(error as NodeJS.ErrnoException).code === 'ENOENT' ? 'does not exist' : 'is not writable'}`);
+  }
   const { startBuilder } = await import('../../screens/keymap-builder-keys.js');
   const start = startBuilder(text, values.name ?? nameFrom(file), file);
   if ('error' in start) throw new ExineError(start.error);
@@ -67,7 +73,13 @@ export async function keysBuild(mode: 'new' | 'edit', args: string[], io: Io): P
     return 0;
   }
   // A new file never replaces one that appeared meanwhile (unless --force); an edit replaces its own file.
-  writeFileAtomic(path, end.text, mode === 'edit' || values.force === true);
+  try {
+    writeFileAtomic(path, end.text, mode === 'edit' || values.force === true);
+  } catch (error) {
+    // What was typed is not lost: the keymap goes to the terminal, to be saved by hand.
+    io.stdout.write(end.text);
+    throw new ExineError(`${(error as Error).message}; the keymap is printed above: save it under another name`);
+  }
   io.stdout.write(`${file}: ${taxa(end.keymap.order.length)} written (${visible(end.keymap.name)}); print a card with exine keys ${file} --card card.svg\n`);
   return 0;
 }
