@@ -167,3 +167,18 @@ describe('the hand check of a keymap shape', () => {
     for (const file of readdirSync(dir).filter((f) => f.endsWith('.json'))) expect(isPlainKeymap(JSON.parse(readFileSync(join(dir, file), 'utf8'))), file).toBe(true);
   });
 });
+
+describe('the time stamp check', () => {
+  it('property: gives the verdict of zod\'s pattern whatever date it saw before (fast-check)', () => {
+    const stampAt = (at: string) => passesHandCheck({ type: 'close', seq: 2, at, prev: 'x' });
+    const day = fc.constantFrom('2026-11-02', '2024-02-29', '2026-02-29', '2026-13-01', '2026-11-31', '1900-02-29', '2000-02-29');
+    const time = fc.constantFrom('T09:00:00.000Z', 'T23:59:59.999Z', 'T24:00:00.000Z', 'T09:60:00.000Z', 'T09:00:00Z', 'T09:00:00.0000Z', ' 09:00:00.000Z');
+    const at = fc.oneof(fc.tuple(day, time).map(([d, t]) => d + t), fc.string({ maxLength: 26 }));
+    fc.assert(
+      fc.property(fc.array(at, { minLength: 1, maxLength: 6 }), (list) => {
+        for (const a of list) expect(stampAt(a)).toBe(ISO_MS.test(a));
+      }),
+      { numRuns: 2000 },
+    );
+  });
+});
