@@ -145,7 +145,8 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
     while (pos < text.length) {
       lineNo++;
       const nl = text.indexOf('\n', pos);
-      if (nl === -1) return (ascii ? text.length - pos : Buffer.byteLength(text.slice(pos))) > limits.maxLineBytes && !allNul(buf, bytePos) ? tooLong() : unfinished();
+      // The rest of the file, with no line end: torn or padding, unless it is longer than any line.
+      if (nl === -1) return buf.length - bytePos > limits.maxLineBytes && !allNul(buf, bytePos) ? tooLong() : unfinished();
       const line = text.slice(pos, nl);
       const lineBytes = ascii ? line.length : Buffer.byteLength(line);
       if (lineBytes > limits.maxLineBytes) return tooLong();
