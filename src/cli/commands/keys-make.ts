@@ -1,6 +1,7 @@
 import { accessSync, constants, existsSync, readFileSync } from 'node:fs';
 import { basename, dirname, extname, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
+import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { emptyKeymapText } from '../../keymap/edit-keymap-text.js';
 import { keymapFromList } from '../../keymap/keymap-from-list.js';
@@ -29,6 +30,7 @@ export function keysFromList(args: string[], io: Io): number {
   const list = parseTaxonList(text, positionals[0] as string);
   if (!list.ok) throw new ExineError(list.message);
   const out = resolve(io.cwd, values.out);
+  refuseOwnInput('keys from-list', values.out, [positionals[0] as string], io.cwd);
   if (!values.force && existsSync(out)) throw new ExineError(`${values.out} already exists; add --force to replace it`);
   const made = keymapFromList(list.entries, values.name ?? nameFrom(values.out), values.out);
   if (!made.ok) throw new ExineError(made.message);
