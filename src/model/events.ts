@@ -7,8 +7,10 @@ import type { Spike } from '../stats/concentration.js';
  * The session-file format this version writes; files with a higher number are refused.
  * 2 added the full rule set, marker spike data and the rules-met / rules-unmet events;
  * format 1 files read as format 2 with a target-sum rule and no spike.
+ * 3 added the slide event (a level counted on more than one slide) and the open
+ * line's fromCore; format 2 files read as format 3 on one slide.
  */
-export const FORMAT_VERSION = 2;
+export const FORMAT_VERSION = 3;
 
 /** What the first line of every session file records about the level. */
 export interface LevelInfo {
@@ -37,6 +39,8 @@ export interface OpenPayload extends LevelInfo {
   readonly rules: RuleSet;
   /** Exotic marker spike added to the sample, or null. */
   readonly spike: Spike | null;
+  /** Present when the level was created in a core folder from its core.json: the flags that overrode it. */
+  readonly fromCore?: { readonly overrides: readonly string[] } | undefined;
 }
 
 export interface GrainPayload {
@@ -137,6 +141,16 @@ export interface RestorePayload {
   readonly reason: string;
 }
 
+/**
+ * Counting goes on on another slide of the same level (the last one was used up).
+ * Traverse numbers go on across slides: `traverse` is the first one on this slide.
+ */
+export interface SlidePayload {
+  readonly type: 'slide';
+  readonly slide: string;
+  readonly traverse: number;
+}
+
 export interface ClosePayload {
   readonly type: 'close';
 }
@@ -159,6 +173,7 @@ export type EventPayload =
   | RepairPayload
   | VoidPayload
   | RestorePayload
+  | SlidePayload
   | ClosePayload
   | FinishPayload;
 

@@ -38,6 +38,8 @@ export interface NewLevel {
   readonly keymap: Keymap;
   readonly rules: RuleSet;
   readonly spike: Spike | null;
+  /** Set when the level is made in a core folder from its core.json. */
+  readonly fromCore?: { readonly overrides: readonly string[] } | undefined;
 }
 
 /** Backups beside the session that no repair event names. */
@@ -85,6 +87,7 @@ export function createLevel(path: string, level: NewLevel, options: WriterOption
         keymap: level.keymap,
         rules: level.rules,
         spike: level.spike,
+        ...(level.fromCore ? { fromCore: level.fromCore } : {}),
       },
       lock,
       options,
