@@ -1,7 +1,7 @@
 import { findNodeAtLocation, parseTree, type Node } from 'jsonc-parser';
 import { z } from 'zod';
 import { lineOf, parseStrictJson } from '../keymap/json-source.js';
-import type { Keymap } from '../keymap/keymap.js';
+import { hasMarkerKey, type Keymap } from '../keymap/keymap.js';
 import { checkKeymapValue } from '../keymap/parse-keymap.js';
 import type { RuleSet } from '../rules/rule-set.js';
 import { hasUnseen, visible } from '../text/visible.js';
@@ -189,7 +189,7 @@ export function parseCoreFile(text: string, source: string): CoreResult {
   const taxa = new Set(Object.values(keymap.keymap.keys).map((b) => b.taxon));
   const stranger = rules.precision?.taxa?.find((t) => !taxa.has(t));
   if (stranger) return fail(ruleLine('precision'), `"rules.precision.taxa" names "${visible(stranger)}", which is not a taxon of the keymap`);
-  if ((rules.markers !== null || rules.concError !== null) && !Object.values(keymap.keymap.keys).some((b) => b.group === 'markers')) {
+  if ((rules.markers !== null || rules.concError !== null) && !hasMarkerKey(keymap.keymap)) {
     return fail(ruleLine(rules.markers !== null ? 'markers' : 'concError'), `marker rules need a key for the markers group, and keymap "${keymap.keymap.name}" has none`);
   }
   if (rules.concError !== null && !raw.markerBatch) return fail(ruleLine('concError'), '"rules.concError" needs "markerBatch" (the tablets, and the count per tablet of their batch)');

@@ -1,6 +1,7 @@
 import type { SummaryGroup } from '../core/core-file.js';
 import { statusOf } from '../core/core-level.js';
-import { groupRank, type Group } from '../keymap/groups.js';
+import type { Group } from '../keymap/groups.js';
+import { groupRank } from '../keymap/keymap.js';
 import { concentration } from '../stats/concentration.js';
 import { levelTable, type LevelTable } from '../stats/level-table.js';
 import type { Cell } from './csv-text.js';
@@ -33,10 +34,12 @@ export function coreMatrix(
 ): { columns: string[]; rows: Cell[][]; taxa: MatrixTaxon[] } {
   const ordered = orderLevels(levels);
   const tables: LevelTable[] = ordered.map((l) => levelTable(l.state));
-  const seen = new Map<string, { group: Group; inSum: boolean; first: number; levels: number; grains: number }>();
-  for (const table of tables) {
+  // A taxon's group is ranked by the keymap of the first level that has it: levels may have groups of their own.
+  const seen = new Map<string, { group: Group; rank: number; inSum: boolean; first: number; levels: number; grains: number }>();
+  for (const [i, table] of tables.entries()) {
+    const keymap = (ordered[i] as ExportLevel).state.keymap;
     for (const r of table.rows) {
-      const t = seen.get(r.taxon) ?? { group: r.group, inSum: r.inSum, first: seen.size, levels: 0, grains: 0 };
+      const t = seen.get(r.taxon) ?? { group: r.group, rank: groupRank(keymap, r.group), inSum: r.inSum, first: seen.size, levels: 0, grains: 0 };
       if (r.count > 0) {
         t.levels++;
         t.grains += r.count;
@@ -45,14 +48,14 @@ export function coreMatrix(
     }
   }
   const taxa = [...seen.entries()]
-    .sort(([, a], [, b]) => groupRank(a.group) - groupRank(b.group) || a.first - b.first)
+    .sort(([, a], [, b]) => a.rank - b.rank || a.first - b.first)
     .map(([taxon, t]): MatrixTaxon => ({ taxon, group: t.group, inSum: t.inSum, mergedFrom: options.mergedFrom?.get(taxon) ?? [], levels: t.levels, grains: t.grains }));
   const groupNames = options.summaryGroups.map((g) => `sum:${g.name}`);
   const columns = ['level', 'depth', 'status', 'rules_met', 'slides', 'grains_by_slide', 'analyst', 'pollen_sum', 'grains', 'markers', 'concentration', 'conc_unit', 'influx', ...groupNames, ...taxa.map((t) => t.taxon), 'source'];
   const rows = ordered.map((l, i): Cell[] => {
     const h = l.state.header;
     const table = tables[i] as LevelTable;
-    const markers = table.groupTotals.markers;
+    const markers = table.markers;
     const conc = l.state.spike ? concentration(table.pollenSum, markers, l.state.spike) : null;
     const value = new Map(table.rows.map((r) => [r.taxon, options.values === 'counts' ? r.count : r.percent]));
     const cell = (taxon: string): number | null => {

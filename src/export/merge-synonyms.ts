@@ -37,6 +37,6 @@ export function mergeSynonyms(state: LevelState, synonyms: Readonly<Record<strin
     const b = bindingOf(to);
     if (n > 0) merges.push({ from, to, grains: n, groupChange: a && b && a.group !== b.group ? { from: a.group, to: b.group } : null });
   }
-  const keymap: Keymap = { ...state.keymap, keys };
+  const keymap: Keymap = { ...state.keymap, keys, order: state.keymap.order.filter((k) => k in keys) };
   return { state: { ...state, keymap, counts }, merges };
 }

@@ -1,8 +1,9 @@
-import { isTypeGroup } from '../keymap/groups.js';
+import { isTypeRole } from '../keymap/groups.js';
+import { roleOf } from '../keymap/keymap.js';
 import type { LevelState } from '../model/level-state.js';
 import { levelReport, type LevelReport } from '../rules/level-report.js';
 import type { Snapshot } from '../session/counting-session.js';
-import { saturationCurve, type SaturationCurve } from '../stats/accumulation.js';
+import { LiveSaturationCurve, type SaturationCurve } from '../stats/accumulation.js';
 import { countLayout, type CountLayout } from './count-layout.js';
 import { headingLines, keysLine, statusArea, stopBannerLine } from './count-lines.js';
 import { helpOverlay } from './help-overlay.js';
@@ -19,14 +20,17 @@ export interface LevelFacts {
   readonly report: LevelReport;
   readonly curve: SaturationCurve;
   readonly rare: readonly RareType[];
-  /** The pollen and spore types counted so far (markers, indeterminables and charcoal are not discoveries). */
+  /** The pollen and spore types counted so far (of groups in the sum or outside it: markers and indeterminables are not discoveries). */
   readonly types: ReadonlySet<string>;
 }
 
+// The curve after each key from where the stack changed, not from every grain (one screen per process).
+const liveCurve = new LiveSaturationCurve();
+
 export function levelFacts(state: LevelState, rareThreshold: number): LevelFacts {
   const groupOf = new Map(Object.values(state.keymap.keys).map((b) => [b.taxon, b.group]));
-  const types = new Set(Object.keys(state.firstSeen).filter((t) => isTypeGroup(groupOf.get(t) ?? 'other')));
-  return { report: levelReport(state), curve: saturationCurve(state), rare: rareTypes(state, rareThreshold), types };
+  const types = new Set(Object.keys(state.firstSeen).filter((t) => isTypeRole(roleOf(state.keymap, groupOf.get(t) ?? 'other'))));
+  return { report: levelReport(state), curve: liveCurve.curve(state), rare: rareTypes(state, rareThreshold), types };
 }
 
 export interface CountViewInput {

@@ -8,7 +8,8 @@ import { exportRefusal, nameFiles } from '../../export/export-guards.js';
 import { LONG_COLUMNS, longRows, NOTE_COLUMNS, noteRows, orderLevels, type ExportLevel } from '../../export/level-export.js';
 import { mergeSynonyms } from '../../export/merge-synonyms.js';
 import { plural } from '../../text/cells.js';
-import type { Io } from '../io.js';
+import { refuseOwnInput } from '../../io/same-file.js';
+import { writeData, type Io } from '../io.js';
 import { deliver, type ExportFlags } from './export.js';
 
 /** Beside the matrix out.csv, its taxa and their groups: out.taxa.csv. */
@@ -29,6 +30,7 @@ export function exportCore(dir: string, values: ExportFlags, io: Io): number {
   if (unreadable.length) {
     throw new ExineError(`exine export: ${nameFiles(unreadable.map((l) => l.file))} cannot be read (${unreadable[0]?.error}); exine verify shows why, and nothing was exported`);
   }
+  if (values.out !== undefined) refuseOwnInput('export', values.out, core.levels.map((l) => l.path), io.cwd);
   if (core.levels.length === 0) throw new ExineError(`exine export: ${dir} has no level yet; count one with exine count ${dir} --depth D`);
   for (const l of core.levels) for (const w of l.warnings) io.stderr.write(`exine: ${w}\n`);
   const levels: ExportLevel[] = core.levels.map((l) => ({ state: l.state as NonNullable<typeof l.state>, source: l.file }));
@@ -71,7 +73,7 @@ export function exportCore(dir: string, values: ExportFlags, io: Io): number {
   }
   const csv = toCsv(matrix.columns, matrix.rows);
   if (values.out === undefined) {
-    io.stdout.write(csv);
+    writeData(io.stdout, csv);
     io.stderr.write(`exine: ${what}; each taxon's group: exine export ${basename(dir)} --format taxa (written beside the matrix with --out)\n`);
     return 0;
   }

@@ -5,10 +5,11 @@ import { isCoreFolder } from '../../core/read-core.js';
 import { toCsv } from '../../export/csv-text.js';
 import { exportRefusal } from '../../export/export-guards.js';
 import { LONG_COLUMNS, longRows, NOTE_COLUMNS, noteRows, orderLevels, wideTable, type ExportLevel } from '../../export/level-export.js';
+import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { plural } from '../../text/cells.js';
 import { readLevel } from '../../session/session-files.js';
-import type { Io } from '../io.js';
+import { writeData, type Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
 import { exportCore } from './export-core.js';
 
@@ -26,7 +27,7 @@ export type ExportFlags = ReturnType<typeof parseFlags<typeof OPTIONS>>['values'
 /** Write `csv` to --out (never over a file without --force, atomically) or to stdout. */
 export function deliver(io: Io, values: { out?: string | undefined; force?: boolean | undefined }, csv: string, what: string): void {
   if (values.out === undefined) {
-    io.stdout.write(csv);
+    writeData(io.stdout, csv);
     return;
   }
   writeFileAtomic(resolve(io.cwd, values.out), csv, values.force === true);
@@ -44,6 +45,7 @@ export function exportCommand(args: string[], io: Io): number {
     throw new UsageError(`exine export: --values must be counts or percent, not "${values.values}"`);
   }
   const out = values.out === undefined ? null : resolve(io.cwd, values.out);
+  if (values.out !== undefined) refuseOwnInput('export', values.out, positionals, io.cwd);
   if (out && existsSync(out) && !values.force) throw new ExineError(`${values.out} already exists; add --force to replace it`);
 
   const dirs = positionals.filter((p) => isCoreFolder(resolve(io.cwd, p)));
