@@ -1,6 +1,6 @@
 import { inPollenSum, type Keymap } from '../keymap/keymap.js';
 import { normalRules } from '../rules/rule-set.js';
-import { closedAfter } from './event-kinds.js';
+import { closedAfter, correctingAfter } from './event-kinds.js';
 import type { OpenEvent, SessionEvent } from './events.js';
 import { RECENT_EVENTS, type CountedGrain, type GrainStack, type LevelState } from './level-state.js';
 
@@ -35,7 +35,25 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     slide: open.slide,
     slides: [{ slide: open.slide, seq: open.seq, at: open.at, traverse: 1 }],
     ignored: [],
+    countingMs: 0,
+    countingClock: { at: open.at, inSitting: false, correcting: false },
   };
+}
+
+/** A gap longer than this inside a sitting is a pause, not counting: the audit's DEFAULT_GAP_MS (a test holds them equal). */
+export const COUNTING_GAP_MS = 5 * 60_000;
+
+/** Counting time as the audit's sitting walk measures it, one event at a time. */
+function timeCounting(d: Draft, event: SessionEvent): void {
+  const clock = d.countingClock;
+  const correcting = correctingAfter(clock.correcting, event.type);
+  if (correcting) {
+    if (!clock.correcting) d.countingClock = { ...clock, correcting };
+    return;
+  }
+  const dt = Date.parse(event.at) - Date.parse(clock.at);
+  if (clock.inSitting && event.type !== 'sitting' && dt > 0 && dt <= COUNTING_GAP_MS) d.countingMs += dt;
+  d.countingClock = { at: event.at, inSitting: clock.inSitting || event.type === 'sitting', correcting: false };
 }
 
 /**
@@ -157,6 +175,7 @@ function step(d: Draft, event: SessionEvent): void {
   d.recent.push(event);
   if (d.recent.length > RECENT_EVENTS) d.recent.shift();
   d.closed = closedAfter(d.closed, event.type);
+  timeCounting(d, event);
   switch (event.type) {
     case 'open':
       // Only line 1 opens a level; the log reader refuses any other.
