@@ -16,9 +16,12 @@ describe('squared-chord distance (Overpeck, Webb & Prentice 1985)', () => {
   });
 
   it('agrees with R vegan', () => {
-    // R 4.x, vegan::vegdist(sqrt(decostand(m, "total")), method = "euclidean")^2 (equivalently
-    // vegdist(m, "hellinger")^2), m = rbind(c(64,36,0,0), c(36,16,48,0), c(10,20,30,40), c(5,0,0,95)):
-    // VEGAN is filled in below from that run.
+    // Reference implementation: R 4.2.2, vegan 2.6.4. vegan's "chord" is the Euclidean distance of rows
+    // scaled to unit length; on square roots of proportions it is √(squared chord), so
+    //   m <- rbind(c(64,36,0,0), c(36,16,48,0), c(10,20,30,40), c(5,0,0,95))
+    //   as.vector(vegdist(sqrt(decostand(m, "total")), method = "chord"))^2
+    // (the same values as vegdist(m, method = "hellinger")^2), pairs 1–2, 1–3, 1–4, 2–3, 2–4, 3–4:
+    const VEGAN = [0.56, 0.9573792598, 1.6422291236, 0.5038091659, 1.7316718427, 0.6256958432];
     const rows = [
       { a: 64, b: 36 },
       { a: 36, b: 16, c: 48 },
