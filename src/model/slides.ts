@@ -38,3 +38,10 @@ export function slideCounts(state: Pick<LevelState, 'slides' | 'stack'>): SlideC
 
 /** The slide names in order of use, "–" for an unnamed one. */
 export const slideNames = (state: Pick<LevelState, 'slides'>): string[] => [...new Set(state.slides.map((s) => s.slide ?? '–'))];
+
+/** The slide traverse `t` was counted on: the last slide whose first traverse is at or before it. */
+export function slideOfTraverse(slides: readonly SlideSpan[], t: number): string | null {
+  let found: string | null = slides[0]?.slide ?? null;
+  for (const s of slides) if (s.traverse <= t) found = s.slide;
+  return found;
+}

@@ -113,6 +113,8 @@ export function createLevel(path: string, level: NewLevel, options: WriterOption
 export interface RuleChange {
   readonly rules?: RuleSet | undefined;
   readonly spike?: Spike | null | undefined;
+  /** Counting goes on on this slide: a slide event is recorded when it is not the current one. */
+  readonly slide?: string | undefined;
 }
 
 export interface ResumeOptions extends WriterOptions {
@@ -176,6 +178,12 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
         record({ type: 'rules', rules, spike });
         if (rulesChanged) notices.push(`stop rules changed from ${describeRules(before.rules)} to ${describeRules(rules)}`);
         else notices.push('marker spike data changed');
+      }
+      if (change.slide !== undefined && change.slide !== state.slide) {
+        // Traverse numbers go on across slides; a traverse with no grain yet is the new slide's first.
+        const traverse = state.stack?.traverse === state.traverse ? state.traverse + 1 : state.traverse;
+        record({ type: 'slide', slide: change.slide, traverse });
+        notices.push(`counting on slide ${change.slide} from traverse ${traverse} (slide ${state.slides.at(-2)?.slide ?? '–'} before)`);
       }
       const signal = rulesSignal(state);
       if (signal) record(signal);
