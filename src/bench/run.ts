@@ -3,6 +3,7 @@
 import { cpus } from 'node:os';
 import { benchCraftedInput } from './crafted-input.js';
 import { benchFirstFrame } from './first-frame.js';
+import { benchKill } from './kill-bench.js';
 import { benchLockRace } from './lock-race-bench.js';
 import { benchOptionalStopping } from './optional-stopping.js';
 import { benchStatsRecompute } from './stats-recompute.js';
@@ -21,6 +22,7 @@ const SECTIONS: Section[] = [
   { name: 'stopping', run: () => benchOptionalStopping(Number(process.env.EXINE_SIM_RUNS ?? 2000)) },
   { name: 'crafted', run: benchCraftedInput },
   { name: 'lock-race', run: () => benchLockRace(Number(process.env.EXINE_LOCK_ROUNDS ?? 1000)) },
+  { name: 'kill', run: () => benchKill(Number(process.env.EXINE_KILL_ROUNDS ?? 1000)), optIn: true },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];
 

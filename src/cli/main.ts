@@ -1,6 +1,6 @@
 import { EXIT, ExineError, UsageError } from '../errors.js';
 import { HELP, MAIN_HELP } from './help.js';
-import { processIo, type Io } from './io.js';
+import { guardedIo, processIo, type Io } from './io.js';
 
 type Command = (args: string[], io: Io) => number | Promise<number>;
 
@@ -18,7 +18,9 @@ const COMMANDS: Readonly<Record<string, () => Promise<Command>>> = {
 };
 
 /** Run one exine command line; returns the exit code (the caller sets it on the process). */
-export async function main(argv: string[], io: Io = processIo()): Promise<number> {
+export async function main(argv: string[], given: Io = processIo()): Promise<number> {
+  // Every line printed passes one escape of control and invisible characters (cli/io.ts).
+  const io = guardedIo(given);
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     io.stdout.write(`${MAIN_HELP}\n`);

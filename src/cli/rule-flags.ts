@@ -1,6 +1,6 @@
 import { UsageError } from '../errors.js';
 import { positiveInteger } from './parse-flags.js';
-import type { Keymap } from '../keymap/keymap.js';
+import { hasMarkerKey, type Keymap } from '../keymap/keymap.js';
 import { DEFAULT_RULES, NO_RULES, type PrecisionRule, type RuleSet } from '../rules/rule-set.js';
 import type { Spike } from '../stats/concentration.js';
 
@@ -131,8 +131,8 @@ export function rulesFromFlags(flags: Flags, keymap: Keymap, recorded: RuleSet |
   if (Object.values(each).every((v) => v === null)) {
     throw new UsageError('exine count: no stop rule is left; give at least one of --target, --precision, --coverage, --plateau, --markers, --conc-error');
   }
-  if ((rules.markers !== null || rules.concError !== null) && !Object.values(keymap.keys).some((b) => b.group === 'markers')) {
-    throw new UsageError(`exine count: marker rules need a key for the markers group, and keymap "${keymap.name}" has none`);
+  if ((rules.markers !== null || rules.concError !== null) && !hasMarkerKey(keymap)) {
+    throw new UsageError(`exine count: marker rules need a key in a group of role marker, and keymap "${keymap.name}" has none`);
   }
   if (rules.concError !== null && !spike) {
     throw new UsageError('exine count: --conc-error needs the marker spike: --tablets, --per-tablet and --volume or --mass');

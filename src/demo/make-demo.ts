@@ -3,7 +3,7 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { loadKeymap } from '../keymap/load-keymap.js';
-import type { Keymap } from '../keymap/keymap.js';
+import { bindingInSum, type Keymap } from '../keymap/keymap.js';
 import { encodeLine } from '../log/line-codec.js';
 import { DEFAULT_RULES, NO_RULES, type RuleSet } from '../rules/rule-set.js';
 import type { Spike } from '../stats/concentration.js';
@@ -54,7 +54,7 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
   const hex = (n: number) => Array.from({ length: n }, () => Math.floor(random() * 16).toString(16)).join('');
   const taxa = Object.entries(level.shares).filter(([, w]) => w > 0);
   const keyOf = new Map(Object.entries(keymap.keys).map(([k, b]) => [b.taxon, k]));
-  const inSum = new Set(Object.values(keymap.keys).filter((b) => keymap.sum.includes(b.group)).map((b) => b.taxon));
+  const inSum = new Set(Object.values(keymap.keys).filter((b) => bindingInSum(keymap, b)).map((b) => b.taxon));
   let time = Date.parse(level.start);
   let seq = 0;
   let prev = '';

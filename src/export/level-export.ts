@@ -1,4 +1,4 @@
-import { groupRank, type Group } from '../keymap/groups.js';
+import { groupRank, roleOf } from '../keymap/keymap.js';
 import type { LevelState } from '../model/level-state.js';
 import { clopperPearsonInterval } from '../stats/clopper-pearson.js';
 import { concentration } from '../stats/concentration.js';
@@ -51,10 +51,10 @@ export function longRows(levels: readonly ExportLevel[]): Cell[][] {
   for (const { state, source } of levels) {
     const h = state.header;
     const table = levelTable(state);
-    const markers = table.groupTotals.markers;
+    const markers = table.markers;
     for (const r of table.rows) {
       const exact = r.basis > 0 ? clopperPearsonInterval(r.count, r.basis) : null;
-      const conc = state.spike && r.group !== 'markers' ? concentration(r.count, markers, state.spike) : null;
+      const conc = state.spike && roleOf(state.keymap, r.group) !== 'marker' ? concentration(r.count, markers, state.spike) : null;
       rows.push([
         h.level,
         h.depth,
@@ -101,20 +101,22 @@ export function orderLevels(levels: readonly ExportLevel[]): ExportLevel[] {
  */
 export function wideTable(levels: readonly ExportLevel[]): { columns: string[]; rows: Cell[][] } {
   const ordered = orderLevels(levels);
-  const taxa = new Map<string, { group: Group; first: number }>();
+  const taxa = new Map<string, { rank: number; first: number }>();
   const tables = ordered.map((l) => levelTable(l.state));
-  for (const table of tables) {
-    for (const r of table.rows) if (!taxa.has(r.taxon)) taxa.set(r.taxon, { group: r.group, first: taxa.size });
-  }
+  // A taxon's group is ranked by the keymap of the first level that counts it: levels may have groups of their own.
+  tables.forEach((table, i) => {
+    const keymap = (ordered[i] as ExportLevel).state.keymap;
+    for (const r of table.rows) if (!taxa.has(r.taxon)) taxa.set(r.taxon, { rank: groupRank(keymap, r.group), first: taxa.size });
+  });
   const names = [...taxa.entries()]
-    .sort(([, a], [, b]) => groupRank(a.group) - groupRank(b.group) || a.first - b.first)
+    .sort(([, a], [, b]) => a.rank - b.rank || a.first - b.first)
     .map(([name]) => name);
   // Concentration and influx of the pollen sum beside the counts, for the concentration diagram of the core.
   const columns = ['level', 'depth', 'site', 'core', 'slide', 'pollen_sum', 'grains', 'markers', 'concentration', 'conc_unit', 'influx', ...names];
   const rows = ordered.map((l, i): Cell[] => {
     const h = l.state.header;
     const table = tables[i] as (typeof tables)[number];
-    const markers = table.groupTotals.markers;
+    const markers = table.markers;
     const conc = l.state.spike ? concentration(table.pollenSum, markers, l.state.spike) : null;
     return [
       h.level,

@@ -48,6 +48,8 @@ export function levelSummary(state: LevelState, rarefyAt: readonly number[] = []
     finishedAt: state.finishedAt,
     groups: table.groupTotals,
     sumGroups: table.sumGroups,
+    groupOrder: table.groups,
+    groupRoles: Object.fromEntries(state.keymap.groups.map((g) => [g.name, g.role])),
     taxa: table.rows.map((r) => {
       const cp = r.basis > 0 ? clopperPearsonInterval(r.count, r.basis) : null;
       const sim = simultaneous.get(r.taxon) ?? null;

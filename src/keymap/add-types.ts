@@ -1,5 +1,5 @@
-import { findNodeAtLocation, parseTree } from 'jsonc-parser';
 import type { Group } from './groups.js';
+import { setKey } from './edit-keymap-text.js';
 import { parseKeymap } from './parse-keymap.js';
 
 export interface AddedType {
@@ -11,18 +11,6 @@ export interface AddedType {
 export type AddResult =
   | { readonly ok: true; readonly text: string; readonly added: readonly AddedType[]; readonly skipped: readonly string[] }
   | { readonly ok: false; readonly message: string };
-
-/** One more key after the last one of "keys", on its own line, indented like the line before. */
-function insertKey(text: string, t: AddedType): string {
-  const keys = findNodeAtLocation(parseTree(text) as NonNullable<ReturnType<typeof parseTree>>, ['keys']);
-  const last = keys?.children?.at(-1);
-  const entry = `${JSON.stringify(t.key)}: { "taxon": ${JSON.stringify(t.taxon)}, "group": ${JSON.stringify(t.group)} }`;
-  if (!keys || !last) return text;
-  const end = last.offset + last.length;
-  const lineStart = text.lastIndexOf('\n', last.offset) + 1;
-  const indent = /^[ \t]*/.exec(text.slice(lineStart))?.[0] ?? '  ';
-  return `${text.slice(0, end)},\n${indent}${entry}${text.slice(end)}`;
-}
 
 /**
  * The keymap file's text with the types added during a count bound to their
@@ -43,7 +31,7 @@ export function addTypesToKeymap(text: string, source: string, types: readonly A
     }
     const holder = before.keymap.keys[t.key];
     if (holder) return { ok: false, message: `keymap ${source}: key "${t.key}" holds ${holder.taxon} there, so ${t.taxon} cannot take it; add it by hand on a free key` };
-    edited = insertKey(edited, t);
+    edited = setKey(edited, t.key, { taxon: t.taxon, group: t.group });
     added.push(t);
   }
   // The result must be a keymap as good as the one it came from.

@@ -1,8 +1,10 @@
-import type { Group } from './groups.js';
+import { DEFAULT_GROUPS, type Group, type GroupDef, type GroupRole } from './groups.js';
 
 export interface TaxonBinding {
   readonly taxon: string;
   readonly group: Group;
+  /** false: this taxon is kept out of the pollen sum although its group is in it (a local wetland type). */
+  readonly inSum?: false;
 }
 
 export const ACTION_NAMES = ['undo', 'traverse', 'note', 'help', 'newType'] as const;
@@ -17,11 +19,15 @@ export type KeyName = string;
 
 export interface Keymap {
   readonly name: string;
-  /** Taxon keys in the order the file lists them: the screen and exports keep this order. */
+  /** Taxon keys, for lookup. Their order is `order`: a JS object puts digit keys first whatever the file said. */
   readonly keys: Readonly<Record<string, TaxonBinding>>;
+  /** Taxon keys in the order the file lists them: screen, help, drawings and exports keep this order. */
+  readonly order: readonly string[];
   /** null: the action has no key (its default key is a taxon key in this keymap). */
   readonly actions: Readonly<Record<ActionName, KeyName | null>>;
-  /** Groups whose grains make up the pollen sum. */
+  /** Every group with its role, in table order (built-in ones and the keymap's own). */
+  readonly groups: readonly GroupDef[];
+  /** Groups whose grains make up the pollen sum (those of role "sum"), kept for readers of older copies. */
   readonly sum: readonly Group[];
 }
 
@@ -36,24 +42,66 @@ export const DEFAULT_ACTIONS: Readonly<Record<ActionName, KeyName>> = {
 /** Actions added after keymaps were first written: their default key yields to a taxon on it. */
 export const LATER_ACTIONS: ReadonlySet<ActionName> = new Set(['help', 'newType']);
 
+/** Names for keys a person cannot see printed: drawn and listed with these. */
+const SHOWN: Readonly<Record<string, string>> = {
+  backspace: 'Backspace',
+  tab: 'Tab',
+  enter: 'Enter',
+  escape: 'Esc',
+  space: 'Space',
+  ' ': 'Space',
+  '\u00a0': 'NBSP',
+};
+
 export function keyLabel(key: KeyName | null): string {
-  switch (key) {
-    case null:
-      return '(no key)';
-    case 'backspace':
-      return 'Backspace';
-    case 'tab':
-      return 'Tab';
-    case 'enter':
-      return 'Enter';
-    case 'escape':
-      return 'Esc';
-    case 'space':
-      return 'Space';
-    default:
-      return key;
-  }
+  if (key === null) return '(no key)';
+  return SHOWN[key] ?? key;
 }
+
+/** The taxon keys with their bindings, in the file's order. */
+export function bindingsOf(keymap: Keymap): [string, TaxonBinding][] {
+  return keymap.order.map((k) => [k, keymap.keys[k] as TaxonBinding]);
+}
+
+/** The keymap with one more taxon key at the end (a type added while counting). */
+export function withKey(keymap: Keymap, key: string, binding: TaxonBinding): Keymap {
+  const groups = keymap.groups.some((g) => g.name === binding.group) ? keymap.groups : [...keymap.groups, { name: binding.group, role: 'outside' as const }];
+  return { ...keymap, keys: { ...keymap.keys, [key]: binding }, order: [...keymap.order, key], groups };
+}
+
+const roleMaps = new WeakMap<Keymap, ReadonlyMap<Group, GroupRole>>();
+
+/** A group's role under this keymap; a group it does not know is outside the sum. */
+export function roleOf(keymap: Keymap, group: Group): GroupRole {
+  let map = roleMaps.get(keymap);
+  if (!map) {
+    map = new Map(keymap.groups.map((g) => [g.name, g.role]));
+    roleMaps.set(keymap, map);
+  }
+  return map.get(group) ?? 'outside';
+}
+
+/** Position of a group in tables and exports; unknown groups go last. */
+export function groupRank(keymap: Keymap, group: Group): number {
+  const i = keymap.groups.findIndex((g) => g.name === group);
+  return i < 0 ? keymap.groups.length : i;
+}
+
+/** Whether grains on this binding count in the pollen sum. */
+export function bindingInSum(keymap: Keymap, b: TaxonBinding): boolean {
+  return b.inSum !== false && roleOf(keymap, b.group) === 'sum';
+}
+
+/** The groups of a keymap that hold exotic markers. */
+export function markerGroups(keymap: Keymap): Group[] {
+  return keymap.groups.filter((g) => g.role === 'marker').map((g) => g.name);
+}
+
+export function hasMarkerKey(keymap: Keymap): boolean {
+  return Object.values(keymap.keys).some((b) => roleOf(keymap, b.group) === 'marker');
+}
+
+export { DEFAULT_GROUPS };
 
 const sumTaxa = new WeakMap<Keymap, ReadonlySet<string>>();
 // A replay asks for one keymap 100,000 times in a row: remember the last one.
@@ -64,11 +112,11 @@ let lastSet: ReadonlySet<string> = new Set();
 export function inPollenSum(keymap: Keymap, taxon: string): boolean {
   let set = keymap === lastKeymap ? lastSet : sumTaxa.get(keymap);
   if (!set) {
-    set = new Set(Object.values(keymap.keys).filter((b) => keymap.sum.includes(b.group)).map((b) => b.taxon));
+    set = new Set(Object.values(keymap.keys).filter((b) => bindingInSum(keymap, b)).map((b) => b.taxon));
     sumTaxa.set(keymap, set);
   }
   lastKeymap = keymap;
   lastSet = set;
   if (set.has(taxon)) return true;
-  return keymap.sum.includes('other') && !Object.values(keymap.keys).some((b) => b.taxon === taxon);
+  return roleOf(keymap, 'other') === 'sum' && !Object.values(keymap.keys).some((b) => b.taxon === taxon);
 }

@@ -1,5 +1,4 @@
 import { z } from 'zod';
-import { GROUPS } from '../keymap/groups.js';
 import { isPrintableKey } from '../keymap/parse-keymap.js';
 import { RULE_NAMES } from '../rules/rule-set.js';
 import type { SessionEvent } from '../model/events.js';
@@ -81,7 +80,8 @@ const taxonEvent = z.object({
   ...stamp,
   type: z.literal('taxon'),
   taxon: z.string().trim().min(1),
-  group: z.enum(GROUPS),
+  // A built-in group or one of the keymap's own (format 3).
+  group: z.string().trim().min(1),
   // As an action key: one printable character, not a space (the keymap's own rule).
   key: z.string().refine((k) => isPrintableKey(k) && k !== ' ', { message: 'a key is one printable character' }),
 });

@@ -5,13 +5,15 @@ import type { ParsedEvent } from './event-schema.js';
 import { lineHashes } from './line-codec.js';
 
 export type { Problem } from './check-event.js';
+/** What is wrong with a line: a content problem, or a line longer than the reader reads. */
+export type ScanProblem = Problem | 'too-long';
 
 export interface Damage {
   /** 1-based line number where the damage starts. */
   readonly line: number;
   /** Byte offset where that line starts. */
   readonly offset: number;
-  readonly problem: Problem;
+  readonly problem: ScanProblem;
   /** What is wrong, in words, naming the line. */
   readonly message: string;
 }
@@ -63,29 +65,38 @@ function checkLine(line: string, lineNo: number, prevHash: string): LineCheck {
   return { ok: true, event: content.event, hash: hashes.actual, ...(content.keymap ? { keymap: content.keymap } : {}) };
 }
 
-const PHYSICAL: ReadonlySet<Problem> = new Set(['no-hash', 'hash-mismatch', 'not-json']);
+const PHYSICAL: ReadonlySet<ScanProblem> = new Set(['no-hash', 'hash-mismatch', 'not-json']);
 
-function allNul(text: string, from: number): boolean {
-  for (let i = from; i < text.length; i++) if (text.charCodeAt(i) !== 0) return false;
+/** What the reader holds at once. Injectable so a test can reach the limits without writing a gigabyte. */
+export interface ScanLimits {
+  /** Longest line read, in bytes: far above any line exine writes (a keymap of thousands of types in line 1). */
+  readonly maxLineBytes: number;
+  /** Bytes decoded to text at once, cut at a line end: keeps every string far below V8's limit (about 512 MiB). */
+  readonly blockBytes: number;
+}
+
+export const SCAN_LIMITS: ScanLimits = { maxLineBytes: 16 * 1024 * 1024, blockBytes: 64 * 1024 * 1024 };
+
+const mib = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MiB`;
+
+function allNul(buf: Buffer, from: number): boolean {
+  for (let i = from; i < buf.length; i++) if (buf[i] !== 0) return false;
   return true;
 }
 
 /**
  * Read a whole session file's bytes: validate every line and the chain, and
  * classify any damage. With `onEvent`, valid events are handed over one by one
- * and not kept, which spares the garbage collector on a long session.
+ * and not kept, which spares the garbage collector on a long session. The bytes
+ * are decoded block by block, each cut at a line end, so a file of any size
+ * reads without one giant string.
  */
-export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keymap) => void): LogScan {
+export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keymap) => void, limits: ScanLimits = SCAN_LIMITS): LogScan {
   const events: ParsedEvent[] = [];
   let keymap: Keymap | null = null;
   let lastHash = '';
   const refs = new References();
-  // Work on the decoded text (one decode, as a plain reader would); count bytes beside it
-  // for the offsets a repair cuts at. In pure ASCII a character is a byte.
-  const text = buf.toString('utf8');
-  const ascii = isAscii(buf);
-  const utf8 = ascii || isUtf8(buf);
-  let pos = 0;
+  const utf8 = isAscii(buf) || isUtf8(buf);
   let bytePos = 0;
   let lineNo = 0;
   let valid = 0;
@@ -102,37 +113,64 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
   if (buf.length === 0) {
     return result(null, { line: 1, offset: 0, problem: 'empty', message: 'the file is empty: it holds no level (an older exine stopped while creating it); delete it and count the level again' });
   }
-  while (pos < text.length) {
-    lineNo++;
-    const nl = text.indexOf('\n', pos);
-    if (nl === -1) {
-      const damage: Damage = allNul(text, pos)
-        ? { line: lineNo, offset: bytePos, problem: 'nul-padding', message: `NUL bytes after line ${lineNo - 1} (typical of a power cut)` }
-        : { line: lineNo, offset: bytePos, problem: 'torn', message: `line ${lineNo} is incomplete (the program stopped while writing it)` };
-      return lineNo === 1 ? result(null, { ...damage, message: `${damage.message}; the level was never created` }) : result(damage, null);
+  const unfinished = (): LogScan => {
+    const damage: Damage = allNul(buf, bytePos)
+      ? { line: lineNo, offset: bytePos, problem: 'nul-padding', message: `NUL bytes after line ${lineNo - 1} (typical of a power cut)` }
+      : { line: lineNo, offset: bytePos, problem: 'torn', message: `line ${lineNo} is incomplete (the program stopped while writing it)` };
+    return lineNo === 1 ? result(null, { ...damage, message: `${damage.message}; the level was never created` }) : result(damage, null);
+  };
+  const tooLong = (): LogScan =>
+    result(null, {
+      line: lineNo,
+      offset: bytePos,
+      problem: 'too-long',
+      message: `line ${lineNo} is longer than ${mib(limits.maxLineBytes)}, far more than any line exine writes: this is not a session file exine can read`,
+    });
+  while (bytePos < buf.length) {
+    // The next block ends just after the last line end it holds; a block with no line end holds a line too long to read.
+    let end = Math.min(buf.length, bytePos + limits.blockBytes);
+    if (end < buf.length) {
+      const nl = buf.lastIndexOf(10, end - 1);
+      if (nl < bytePos) {
+        lineNo++;
+        return allNul(buf, bytePos) ? unfinished() : tooLong();
+      }
+      end = nl + 1;
     }
-    const line = text.slice(pos, nl);
-    let check = checkLine(line, lineNo, lastHash);
-    // Bytes that are not UTF-8 decode as U+FFFD and so fail the hash: say what they are.
-    if (!check.ok && check.problem === 'hash-mismatch' && !utf8 && line.includes('\uFFFD')) {
-      check = { ok: false, problem: 'hash-mismatch', message: `line ${lineNo} is not valid UTF-8: its bytes were changed after it was written` };
+    const block = buf.subarray(bytePos, end);
+    // In pure ASCII a character is a byte: offsets need no counting.
+    const ascii = isAscii(block);
+    const text = block.toString('utf8');
+    let pos = 0;
+    while (pos < text.length) {
+      lineNo++;
+      const nl = text.indexOf('\n', pos);
+      if (nl === -1) return (ascii ? text.length - pos : Buffer.byteLength(text.slice(pos))) > limits.maxLineBytes && !allNul(buf, bytePos) ? tooLong() : unfinished();
+      const line = text.slice(pos, nl);
+      const lineBytes = ascii ? line.length : Buffer.byteLength(line);
+      if (lineBytes > limits.maxLineBytes) return tooLong();
+      let check = checkLine(line, lineNo, lastHash);
+      // Bytes that are not UTF-8 decode as U+FFFD and so fail the hash: say what they are.
+      if (!check.ok && check.problem === 'hash-mismatch' && !utf8 && line.includes('\uFFFD')) {
+        check = { ok: false, problem: 'hash-mismatch', message: `line ${lineNo} is not valid UTF-8: its bytes were changed after it was written` };
+      }
+      if (!check.ok) {
+        const damage: Damage = { line: lineNo, offset: bytePos, problem: check.problem, message: check.message };
+        // Only physical damage of the very last line is cut off: a line whose own hash holds was
+        // written whole, so a wrong seq or chain there is an edit, not a crash.
+        const repairable = lineNo > 1 && allNul(buf, bytePos + lineBytes + 1) && PHYSICAL.has(check.problem);
+        return repairable ? result(damage, null) : result(null, damage);
+      }
+      const dangling = refs.check(check.event);
+      if (dangling) return result(null, { line: lineNo, offset: bytePos, problem: 'bad-reference', message: `line ${lineNo} ${dangling}` });
+      if (check.keymap) keymap = check.keymap;
+      valid++;
+      if (onEvent) onEvent(check.event, keymap as Keymap);
+      else events.push(check.event);
+      lastHash = check.hash;
+      pos = nl + 1;
+      bytePos += lineBytes + 1;
     }
-    if (!check.ok) {
-      const damage: Damage = { line: lineNo, offset: bytePos, problem: check.problem, message: check.message };
-      // Only physical damage of the very last line is cut off: a line whose own hash holds was
-      // written whole, so a wrong seq or chain there is an edit, not a crash.
-      const repairable = lineNo > 1 && allNul(text, nl + 1) && PHYSICAL.has(check.problem);
-      return repairable ? result(damage, null) : result(null, damage);
-    }
-    const dangling = refs.check(check.event);
-    if (dangling) return result(null, { line: lineNo, offset: bytePos, problem: 'bad-reference', message: `line ${lineNo} ${dangling}` });
-    if (check.keymap) keymap = check.keymap;
-    valid++;
-    if (onEvent) onEvent(check.event, keymap as Keymap);
-    else events.push(check.event);
-    lastHash = check.hash;
-    pos = nl + 1;
-    bytePos += (ascii ? line.length : Buffer.byteLength(line)) + 1;
   }
   return result(null, null);
 }

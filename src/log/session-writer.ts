@@ -7,6 +7,7 @@ import { fsyncDir } from '../io/fsync-dir.js';
 import type { EventPayload, SessionEvent } from '../model/events.js';
 import { checkEventContent } from './check-event.js';
 import { encodeLine } from './line-codec.js';
+import { SCAN_LIMITS } from './scan-log.js';
 import { recordUnconfirmed } from './unconfirmed.js';
 import type { SessionLock } from './session-lock.js';
 
@@ -135,6 +136,9 @@ export class SessionWriter {
       const check = checkEventContent(JSON.parse(encoded.line) as Record<string, unknown>, stamp.seq);
       if (!check.ok) {
         throw new AppendError(`not recorded: the ${payload.type} event would not read back (line ${stamp.seq} ${check.message}); nothing was written`, false);
+      }
+      if (Buffer.byteLength(encoded.line) > SCAN_LIMITS.maxLineBytes) {
+        throw new AppendError(`not recorded: the ${payload.type} event would be a line longer than the reader reads (${SCAN_LIMITS.maxLineBytes} bytes); nothing was written`, false);
       }
       hash = encoded.hash;
       lines.push(`${encoded.line}\n`);

@@ -1,4 +1,4 @@
-import { inPollenSum, type Keymap } from '../keymap/keymap.js';
+import { inPollenSum, withKey, type Keymap } from '../keymap/keymap.js';
 import { normalRules } from '../rules/rule-set.js';
 import { closedAfter, correctingAfter } from './event-kinds.js';
 import type { OpenEvent, SessionEvent } from './events.js';
@@ -232,7 +232,7 @@ function step(d: Draft, event: SessionEvent): void {
         d.ignored.push(event.seq);
         return;
       }
-      d.keymap = { ...d.keymap, keys: { ...d.keymap.keys, [event.key]: { taxon: event.taxon, group: event.group } } };
+      d.keymap = withKey(d.keymap, event.key, { taxon: event.taxon, group: event.group });
       d.addedTypes = [...d.addedTypes, event.taxon];
       return;
     }

@@ -1,4 +1,5 @@
-import { isTypeGroup } from '../keymap/groups.js';
+import { isTypeRole } from '../keymap/groups.js';
+import { roleOf } from '../keymap/keymap.js';
 import type { LevelState } from '../model/level-state.js';
 import { levelReport, type LevelReport } from '../rules/level-report.js';
 import type { Snapshot } from '../session/counting-session.js';
@@ -19,13 +20,13 @@ export interface LevelFacts {
   readonly report: LevelReport;
   readonly curve: SaturationCurve;
   readonly rare: readonly RareType[];
-  /** The pollen and spore types counted so far (markers, indeterminables and charcoal are not discoveries). */
+  /** The pollen and spore types counted so far (of groups in the sum or outside it: markers and indeterminables are not discoveries). */
   readonly types: ReadonlySet<string>;
 }
 
 export function levelFacts(state: LevelState, rareThreshold: number): LevelFacts {
   const groupOf = new Map(Object.values(state.keymap.keys).map((b) => [b.taxon, b.group]));
-  const types = new Set(Object.keys(state.firstSeen).filter((t) => isTypeGroup(groupOf.get(t) ?? 'other')));
+  const types = new Set(Object.keys(state.firstSeen).filter((t) => isTypeRole(roleOf(state.keymap, groupOf.get(t) ?? 'other'))));
   return { report: levelReport(state), curve: saturationCurve(state), rare: rareTypes(state, rareThreshold), types };
 }
 

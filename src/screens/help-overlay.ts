@@ -1,4 +1,4 @@
-import { keyLabel, type Keymap } from '../keymap/keymap.js';
+import { bindingsOf, keyLabel, type Keymap } from '../keymap/keymap.js';
 import { fit } from '../text/cells.js';
 import { line, type Line } from './styled-line.js';
 
@@ -12,7 +12,7 @@ export function helpLines(keymap: Keymap, width: number, room: number): string[]
     `${keyLabel(a.newType)} a type not in the keymap ("name, group")`,
     `${keyLabel(a.help)} this help · Ctrl-F finish the level · Ctrl-C save and quit`,
   ];
-  const taxa = Object.entries(keymap.keys).map(([k, b]) => `${keyLabel(k)} ${b.taxon}`);
+  const taxa = bindingsOf(keymap).map(([k, b]) => `${keyLabel(k)} ${b.taxon}`);
   const columnWidth = 24;
   const perLine = Math.max(1, Math.floor(width / columnWidth));
   const rowsNeeded = Math.ceil(taxa.length / perLine);

@@ -1,23 +1,19 @@
-import { GROUPS, type Group } from '../keymap/groups.js';
+import { groupShort, groupTitle } from '../keymap/group-labels.js';
+import type { Group } from '../keymap/groups.js';
 import type { LevelTable } from '../stats/level-table.js';
 import { bar, fit, right } from '../text/cells.js';
 import { line, type Line } from './styled-line.js';
 
-const SHORT: Readonly<Record<Group, string>> = {
+const SHORT: Readonly<Record<string, string>> = {
   trees: 'Trees',
-  shrubs: 'Shrub',
   herbs: 'Herbs',
-  spores: 'Spore',
-  aquatics: 'Aquat',
   markers: 'Mark',
-  indeterminable: 'Indet',
-  other: 'Other',
 };
-
-const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+const shortOf = (g: Group) => SHORT[g] ?? groupTitle(groupShort(g, 5));
+const capital = groupTitle;
 
 function shownGroups(table: LevelTable) {
-  return GROUPS.filter((g) => table.sumGroups.includes(g) || table.groupTotals[g] > 0);
+  return table.groups.filter((g) => table.sumGroups.includes(g) || (table.groupTotals[g] ?? 0) > 0);
 }
 
 /** Lines the panel takes, so the screen can give the rest to other panels. */
@@ -29,7 +25,7 @@ export function sumPanelHeight(table: LevelTable, target: number | null, compact
 
 /** "Trees 135 · 57%"-style cells: count, and a share for groups outside the sum (of sum + group). */
 function groupCell(table: LevelTable, g: Group, width: number): string {
-  const n = table.groupTotals[g];
+  const n = table.groupTotals[g] ?? 0;
   const outside = !table.sumGroups.includes(g);
   const share = outside && n > 0 ? ` ${((100 * n) / (table.pollenSum + n)).toFixed(0)}%` : '';
   return `${fit(capital(g), Math.max(4, width - 6 - share.length - (outside ? 2 : 0)))} ${right(String(n), 5)}${share}${outside ? ' *' : ''}`;
@@ -42,7 +38,7 @@ export function sumLines(table: LevelTable, target: number | null, width: number
   const pairs: string[] = [];
   if (compact) {
     for (let i = 0; i < groups.length; i += 2) {
-      const cell = (g: Group | undefined) => (g ? `${fit(SHORT[g], half - 5)}${right(String(table.groupTotals[g]), 4)}${table.sumGroups.includes(g) ? ' ' : '*'}` : '');
+      const cell = (g: Group | undefined) => (g ? `${fit(shortOf(g), half - 5)}${right(String(table.groupTotals[g] ?? 0), 4)}${table.sumGroups.includes(g) ? ' ' : '*'}` : '');
       // Five letters and four digits fit a 22-column side panel.
       pairs.push(`${cell(groups[i])}${cell(groups[i + 1])}`);
     }

@@ -1,19 +1,9 @@
-import type { Group } from '../keymap/groups.js';
 import { keyLabel } from '../keymap/keymap.js';
 import type { LevelTable, TaxonRow } from '../stats/level-table.js';
 import { ci, fit, pct, right } from '../text/cells.js';
 import { line, type Line } from './styled-line.js';
 
-const GROUP_SHORT: Readonly<Record<Group, string>> = {
-  trees: 'tree',
-  shrubs: 'shrub',
-  herbs: 'herb',
-  spores: 'spore',
-  aquatics: 'aquat',
-  markers: 'marker',
-  indeterminable: 'indet',
-  other: 'other',
-};
+import { groupShort } from '../keymap/group-labels.js';
 
 /** The table's width for a taxon column of `taxonWidth` characters (18 fits 80 columns). */
 export function tableWidth(taxonWidth: number): number {
@@ -41,7 +31,7 @@ export function visibleRows(rows: readonly TaxonRow[], room: number): { shown: T
 
 function rowText(r: TaxonRow, taxonWidth: number): string {
   const key = r.key === null ? '' : keyLabel(r.key);
-  return `${fit(key, 3)} ${fit(r.taxon, taxonWidth)} ${fit(GROUP_SHORT[r.group], 6)} ${right(String(r.count), 5)} ${right(pct(r.percent), 5)}  ${ci(r.ciLow, r.ciHigh)}`;
+  return `${fit(key, 3)} ${fit(r.taxon, taxonWidth)} ${fit(groupShort(r.group), 6)} ${right(String(r.count), 5)} ${right(pct(r.percent), 5)}  ${ci(r.ciLow, r.ciHigh)}`;
 }
 
 /**

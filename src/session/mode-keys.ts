@@ -1,6 +1,5 @@
-import { GROUPS } from '../keymap/groups.js';
 import type { KeyPress } from '../input/key-press.js';
-import { editLine } from '../input/line-edit.js';
+import { editLine, LINE_FULL_MESSAGE, lineFull } from '../input/line-edit.js';
 import type { Burst, Outcome } from './burst.js';
 import { nextFreeKey } from './free-key.js';
 import { parseNewType, parseNote, type InputMode } from './input-mode.js';
@@ -39,6 +38,7 @@ function noteKey(b: Burst, mode: ModeOf<'note'>, key: KeyPress): Outcome {
   }
   if (next !== 'enter') {
     b.mode = { ...mode, text: next };
+    if (lineFull(mode.text, key)) b.say(LINE_FULL_MESSAGE, 'warning');
     return 'go-on';
   }
   b.mode = null;
@@ -63,9 +63,10 @@ function newTypeKey(b: Burst, mode: ModeOf<'new-type'>, key: KeyPress): Outcome 
   }
   if (next !== 'enter') {
     b.mode = { ...mode, text: next };
+    if (lineFull(mode.text, key)) b.say(LINE_FULL_MESSAGE, 'warning');
     return 'go-on';
   }
-  const parsed = parseNewType(mode.text, GROUPS);
+  const parsed = parseNewType(mode.text, b.state().keymap.groups.map((g) => g.name));
   if (!parsed.ok) {
     b.say(parsed.message, 'warning');
     return 'go-on';

@@ -155,38 +155,43 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
     } else if (!repaired && !state.closed) {
       notices.push('the last sitting was not closed cleanly (the program was stopped); every grain it showed is on disk');
     }
-    const writer = SessionWriter.resume(path, scan.goodBytes, state.lastSeq, scan.lastHash, lock, options);
+    // Everything this open records goes to disk in one write: a failed open leaves no sitting line behind.
+    const staged: EventPayload[] = [];
+    let trial = state;
     const record = (payload: EventPayload) => {
-      state = applyEvent(state, writer.append(payload));
+      staged.push(payload);
+      trial = applyEvent(trial, { ...payload, seq: trial.lastSeq + 1, at: trial.lastAt } as SessionEvent);
     };
+    if (repaired) {
+      const { damage, cutBytes, backup } = repaired;
+      record({ type: 'repair', damage: damage.message, line: damage.line, cutBytes, backup });
+    }
+    // A repair stopped between its cut and its record left a backup that no repair event names.
+    for (const orphan of unrecordedBackups(path, trial)) {
+      record({ type: 'repair', damage: 'a repair was stopped before it was recorded; its backup was found at this open', line: trial.lastSeq + 1, cutBytes: orphan.bytes, backup: orphan.name });
+      notices.push(`found ${orphan.name} (${orphan.bytes} bytes cut off by a repair that was stopped before it was recorded); it is recorded now and kept`);
+    }
+    record({ type: 'sitting', sitting: trial.sitting + 1 });
+    const before = trial;
+    const rules = change.rules ?? before.rules;
+    const spike = change.spike === undefined ? before.spike : change.spike;
+    const rulesChanged = !sameRules(rules, before.rules);
+    if (rulesChanged || JSON.stringify(spike) !== JSON.stringify(before.spike)) {
+      record({ type: 'rules', rules, spike });
+      if (rulesChanged) notices.push(`stop rules changed from ${describeRules(before.rules)} to ${describeRules(rules)}`);
+      else notices.push('marker spike data changed');
+    }
+    if (change.slide !== undefined && change.slide !== trial.slide) {
+      // Traverse numbers go on across slides; a traverse with no grain yet is the new slide's first.
+      const traverse = trial.stack?.traverse === trial.traverse ? trial.traverse + 1 : trial.traverse;
+      record({ type: 'slide', slide: change.slide, traverse });
+      notices.push(`counting on slide ${change.slide} from traverse ${traverse} (slide ${trial.slides.at(-2)?.slide ?? '–'} before)`);
+    }
+    const signal = rulesSignal(trial);
+    if (signal) record(signal);
+    const writer = SessionWriter.resume(path, scan.goodBytes, state.lastSeq, scan.lastHash, lock, options);
     try {
-      if (repaired) {
-        const { damage, cutBytes, backup } = repaired;
-        record({ type: 'repair', damage: damage.message, line: damage.line, cutBytes, backup });
-      }
-      // A repair stopped between its cut and its record left a backup that no repair event names.
-      for (const orphan of unrecordedBackups(path, state)) {
-        record({ type: 'repair', damage: 'a repair was stopped before it was recorded; its backup was found at this open', line: state.lastSeq + 1, cutBytes: orphan.bytes, backup: orphan.name });
-        notices.push(`found ${orphan.name} (${orphan.bytes} bytes cut off by a repair that was stopped before it was recorded); it is recorded now and kept`);
-      }
-      record({ type: 'sitting', sitting: state.sitting + 1 });
-      const before = state;
-      const rules = change.rules ?? before.rules;
-      const spike = change.spike === undefined ? before.spike : change.spike;
-      const rulesChanged = !sameRules(rules, before.rules);
-      if (rulesChanged || JSON.stringify(spike) !== JSON.stringify(before.spike)) {
-        record({ type: 'rules', rules, spike });
-        if (rulesChanged) notices.push(`stop rules changed from ${describeRules(before.rules)} to ${describeRules(rules)}`);
-        else notices.push('marker spike data changed');
-      }
-      if (change.slide !== undefined && change.slide !== state.slide) {
-        // Traverse numbers go on across slides; a traverse with no grain yet is the new slide's first.
-        const traverse = state.stack?.traverse === state.traverse ? state.traverse + 1 : state.traverse;
-        record({ type: 'slide', slide: change.slide, traverse });
-        notices.push(`counting on slide ${change.slide} from traverse ${traverse} (slide ${state.slides.at(-2)?.slide ?? '–'} before)`);
-      }
-      const signal = rulesSignal(state);
-      if (signal) record(signal);
+      state = applyEvents(state, writer.appendAll(staged));
     } catch (error) {
       writer.close();
       throw error;

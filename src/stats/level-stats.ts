@@ -22,7 +22,7 @@ export interface LevelStats {
 export function levelStats(state: LevelCounts): LevelStats {
   const table = levelTable(state);
   const freq = frequencies(table.rows.filter((r) => r.inSum).map((r) => r.count));
-  const markers = table.groupTotals.markers;
+  const markers = table.markers;
   return {
     table,
     freq,

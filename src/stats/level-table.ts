@@ -1,5 +1,5 @@
-import { GROUPS, groupRank, type Group } from '../keymap/groups.js';
-import type { Keymap } from '../keymap/keymap.js';
+import type { Group } from '../keymap/groups.js';
+import { bindingInSum, bindingsOf, groupRank, roleOf, type Keymap } from '../keymap/keymap.js';
 import type { LevelCounts } from './level-counts.js';
 import { wilsonInterval } from './wilson.js';
 
@@ -21,8 +21,13 @@ export interface TaxonRow {
 export interface LevelTable {
   readonly rows: readonly TaxonRow[];
   readonly pollenSum: number;
+  /** Grains of every group of the keymap (0 for a group not counted). */
   readonly groupTotals: Readonly<Record<Group, number>>;
   readonly sumGroups: readonly Group[];
+  /** The keymap's groups in table order (an object's keys would put a group named "1" first). */
+  readonly groups: readonly Group[];
+  /** Grains of the groups with the marker role. */
+  readonly markers: number;
   readonly grains: number;
 }
 
@@ -39,9 +44,9 @@ const layouts = new WeakMap<Keymap, { slots: readonly Slot[]; known: ReadonlySet
 function layoutOf(keymap: Keymap) {
   let layout = layouts.get(keymap);
   if (!layout) {
-    const slots = Object.entries(keymap.keys).map(([key, b]) => ({ key, taxon: b.taxon, group: b.group, inSum: keymap.sum.includes(b.group) }));
+    const slots = bindingsOf(keymap).map(([key, b]) => ({ key, taxon: b.taxon, group: b.group, inSum: bindingInSum(keymap, b) }));
     // Stable order for every view: by group, then as the keymap lists them (sort is stable).
-    slots.sort((a, b) => groupRank(a.group) - groupRank(b.group));
+    slots.sort((a, b) => groupRank(keymap, a.group) - groupRank(keymap, b.group));
     layout = { slots, known: new Set(slots.map((s) => s.taxon)) };
     layouts.set(keymap, layout);
   }
@@ -59,20 +64,26 @@ export function levelTable(state: LevelCounts): LevelTable {
   let slots = layout.slots;
   const unknown = Object.keys(counts).filter((t) => !layout.known.has(t));
   if (unknown.length) {
-    const extra = unknown.map((taxon): Slot => ({ key: null, taxon, group: 'other', inSum: keymap.sum.includes('other') }));
-    slots = [...slots, ...extra].sort((a, b) => groupRank(a.group) - groupRank(b.group));
+    const extra = unknown.map((taxon): Slot => ({ key: null, taxon, group: 'other', inSum: roleOf(keymap, 'other') === 'sum' }));
+    slots = [...slots, ...extra].sort((a, b) => groupRank(keymap, a.group) - groupRank(keymap, b.group));
   }
-  const groupTotals = Object.fromEntries(GROUPS.map((g) => [g, 0])) as Record<Group, number>;
-  for (const s of slots) groupTotals[s.group] += counts[s.taxon] ?? 0;
+  const groupTotals: Record<Group, number> = Object.fromEntries(keymap.groups.map((g) => [g.name, 0]));
   let pollenSum = 0;
-  for (const g of keymap.sum) pollenSum += groupTotals[g];
+  let markers = 0;
+  for (const s of slots) {
+    const n = counts[s.taxon] ?? 0;
+    groupTotals[s.group] = (groupTotals[s.group] ?? 0) + n;
+    if (s.inSum) pollenSum += n;
+    else if (roleOf(keymap, s.group) === 'marker') markers += n;
+  }
 
   const rows = slots.map((s): TaxonRow => {
     const count = counts[s.taxon] ?? 0;
-    const basis = s.inSum ? pollenSum : pollenSum + groupTotals[s.group];
+    // A taxon taken out of a group in the sum is a percent of the sum plus itself.
+    const basis = s.inSum ? pollenSum : pollenSum + (roleOf(keymap, s.group) === 'sum' ? count : (groupTotals[s.group] ?? 0));
     if (basis === 0) return { key: s.key, taxon: s.taxon, group: s.group, inSum: s.inSum, count, basis, percent: null, ciLow: null, ciHigh: null };
     const ci = wilsonInterval(count, basis);
     return { key: s.key, taxon: s.taxon, group: s.group, inSum: s.inSum, count, basis, percent: (100 * count) / basis, ciLow: 100 * ci.low, ciHigh: 100 * ci.high };
   });
-  return { rows, pollenSum, groupTotals, sumGroups: keymap.sum, grains: state.grains };
+  return { rows, pollenSum, groupTotals, sumGroups: keymap.sum, groups: keymap.groups.map((g) => g.name), markers, grains: state.grains };
 }

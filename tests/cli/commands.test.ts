@@ -73,7 +73,8 @@ describe('the read-only commands on the demo core', () => {
     const run = await runExine(['keys', 'keypad']);
     expect(run.code).toBe(0);
     expect(run.stdout).toMatch(/laid out on the numeric keypad/);
-    expect(run.stdout).toMatch(/7 T\s+8 T\s+9 T\s+\+/);
+    expect(run.stdout).toMatch(/7 T\s+8 T\s+9 T\s+\+ M/);
+    expect(run.stdout).toMatch(/0\s+\.\s*\n\(undo\)\s+\(note\)/);
   });
 
   it('help for every command, exit 0', async () => {

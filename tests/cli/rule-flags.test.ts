@@ -74,6 +74,6 @@ describe('stop-rule flags', () => {
 
   it('marker rules need a markers key in the keymap', () => {
     const noMarkers = { ...TINY_KEYMAP, keys: { a: TINY_KEYMAP.keys.a! } };
-    expect(() => rulesFromFlags({ markers: '50' }, noMarkers, null, null)).toThrow(/marker rules need a key for the markers group, and keymap "tiny" has none/);
+    expect(() => rulesFromFlags({ markers: '50' }, noMarkers, null, null)).toThrow(/marker rules need a key in a group of role marker, and keymap "tiny" has none/);
   });
 });

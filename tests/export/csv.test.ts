@@ -7,7 +7,7 @@ import { LONG_COLUMNS, longRows, wideTable } from '../../src/export/level-export
 import { writeFileAtomic } from '../../src/io/write-atomic.js';
 import { foldEvents } from '../../src/model/fold.js';
 import type { OpenEvent, SessionEvent, EventPayload } from '../../src/model/events.js';
-import type { Keymap } from '../../src/keymap/keymap.js';
+import { withKey, type Keymap } from '../../src/keymap/keymap.js';
 import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
 import { tempDir } from '../helpers/temp-dir.js';
 
@@ -52,7 +52,7 @@ describe('long export', () => {
   });
 
   it('a taxon named like a formula is neutralised in the file', () => {
-    const keymap: Keymap = { ...TINY_KEYMAP, keys: { ...TINY_KEYMAP.keys, f: { taxon: '=1+1', group: 'herbs' } } };
+    const keymap: Keymap = withKey(TINY_KEYMAP, 'f', { taxon: '=1+1', group: 'herbs' });
     const l = level(5, [grain('=1+1'), grain('Alnus')], keymap);
     const csv = toCsv(LONG_COLUMNS, longRows([l]));
     expect(csv).toMatch(/,'=1\+1,herbs,/);

@@ -1,6 +1,6 @@
 import { join } from 'node:path';
 import { loadKeymap } from '../../src/keymap/load-keymap.js';
-import { DEFAULT_ACTIONS, type Keymap } from '../../src/keymap/keymap.js';
+import { DEFAULT_ACTIONS, DEFAULT_GROUPS, type Keymap } from '../../src/keymap/keymap.js';
 import { encodeLine } from '../../src/log/line-codec.js';
 import { DEFAULT_RULES, type RuleSet } from '../../src/rules/rule-set.js';
 import type { Spike } from '../../src/stats/concentration.js';
@@ -21,7 +21,9 @@ export const TINY_KEYMAP: Keymap = {
     s: { taxon: 'Sphagnum', group: 'spores' },
     l: { taxon: 'Lycopodium', group: 'markers' },
   },
+  order: ['a', 'b', 'c', 'o', 's', 'l'],
   actions: { ...DEFAULT_ACTIONS },
+  groups: DEFAULT_GROUPS,
   sum: ['trees', 'shrubs', 'herbs'],
 };
 
@@ -75,7 +77,7 @@ export function keymapOf(n: number): Keymap {
   const keys: Record<string, { taxon: string; group: 'trees' | 'markers' }> = {};
   for (let i = 0; i < n; i++) keys[chars[i] as string] = { taxon: `T${String(i + 1).padStart(2, '0')}`, group: 'trees' };
   keys['.'] = { taxon: 'Marker', group: 'markers' };
-  return { name: `reference-${n}`, keys, actions: { ...DEFAULT_ACTIONS }, sum: ['trees', 'shrubs', 'herbs'] };
+  return { name: `reference-${n}`, keys, order: Object.keys(keys), actions: { ...DEFAULT_ACTIONS }, groups: DEFAULT_GROUPS, sum: ['trees', 'shrubs', 'herbs'] };
 }
 
 /** Grain events for counts laid out per taxon (T01 gets counts[0] …), then `markers` marker grains. */

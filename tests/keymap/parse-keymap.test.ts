@@ -20,7 +20,9 @@ describe('keymap files', () => {
     expect(lowland.sum).toEqual(['trees', 'shrubs', 'herbs']);
     const keypad = loadKeymap('keypad').keymap;
     expect(Object.keys(keypad.keys).every((k) => '0123456789.+-*/'.includes(k))).toBe(true);
-    expect(keypad.actions).toEqual({ undo: '-', traverse: '+', note: 'enter', help: '?', newType: '=' });
+    expect(keypad.actions).toEqual({ undo: '0', traverse: 'enter', note: '.', help: '?', newType: '=' });
+    // The file's order, home row first, whatever a JS object does with digit keys.
+    expect(keypad.order.slice(0, 3)).toEqual(['4', '5', '6']);
   });
 
   it('defaults the actions to Backspace, Tab, Enter, ? (help) and = (new type)', () => {
@@ -53,7 +55,7 @@ describe('keymap files', () => {
 
   it('names the key with an unknown group and lists the groups', () => {
     expect(err('{"name":"x","keys":{"q":{"taxon":"Quercus","group":"treez"}}}')).toBe(
-      'keymap my.json: key "q" has unknown group "treez" (expected one of trees, shrubs, herbs, spores, aquatics, markers, indeterminable, other)',
+      'keymap my.json: key "q" has unknown group "treez" (expected one of trees, shrubs, herbs, spores, aquatics, markers, indeterminable, other); did you mean "trees"?; a group of your own goes in "groups" with its role',
     );
   });
 

@@ -6,6 +6,7 @@ import { scanLog } from '../../src/log/scan-log.js';
 import { readLevel, resumeLevel } from '../../src/session/session-files.js';
 import { tempDir } from '../helpers/temp-dir.js';
 import { TINY_KEYMAP, grain, openPayload, sessionText } from '../helpers/levels.js';
+import { withKey } from '../../src/keymap/keymap.js';
 
 const body = sessionText([openPayload(), { type: 'sitting', sitting: 1 }, grain('Alnus'), grain('Betula'), grain('Betula', 1, 'b')]);
 const lastLine = sessionText([openPayload(), { type: 'sitting', sitting: 1 }, grain('Alnus'), grain('Betula'), grain('Betula', 1, 'b'), grain('Corylus')]).slice(body.length);
@@ -64,7 +65,7 @@ describe('resuming a level', () => {
   });
 
   it('repairs a torn line of non-ASCII text cut inside a multi-byte character, at every byte', () => {
-    const keymap = { ...TINY_KEYMAP, keys: { ...TINY_KEYMAP.keys, e: { taxon: 'Æsculus—type', group: 'trees' as const } } };
+    const keymap = withKey(TINY_KEYMAP, 'e', { taxon: 'Æsculus—type', group: 'trees' });
     const head = sessionText([openPayload(keymap), grain('Æsculus—type', 1, 'e'), { type: 'note', text: 'cf. Tilia, très abîmé 🌲', grain: 2, stage: null }]);
     const full = sessionText([openPayload(keymap), grain('Æsculus—type', 1, 'e'), { type: 'note', text: 'cf. Tilia, très abîmé 🌲', grain: 2, stage: null }, grain('Æsculus—type', 1, 'e')]);
     const headBytes = Buffer.from(head);

@@ -25,7 +25,7 @@ describe('the level table', () => {
   });
 
   it('follows the keymap\'s own pollen sum', () => {
-    const treesOnly: Keymap = { ...TINY_KEYMAP, sum: ['trees'] };
+    const treesOnly: Keymap = { ...TINY_KEYMAP, groups: TINY_KEYMAP.groups.map((g) => (g.name === 'shrubs' || g.name === 'herbs' ? { ...g, role: 'outside' as const } : g)), sum: ['trees'] };
     const t = table([...times(30, 'Alnus'), ...times(10, 'Betula'), ...times(10, 'Corylus')], treesOnly);
     expect(t.pollenSum).toBe(40);
     const corylus = t.rows.find((r) => r.taxon === 'Corylus')!;

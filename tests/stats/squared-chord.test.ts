@@ -22,7 +22,7 @@ describe('squared-chord distance (Overpeck, Webb & Prentice 1985)', () => {
     //   as.vector(vegdist(sqrt(decostand(m, "total")), method = "chord"))^2
     // (the same values as vegdist(m, method = "hellinger")^2), pairs 1–2, 1–3, 1–4, 2–3, 2–4, 3–4:
     const VEGAN = [0.56, 0.9573792598, 1.6422291236, 0.5038091659, 1.7316718427, 0.6256958432];
-    const rows = [
+    const rows: Record<string, number>[] = [
       { a: 64, b: 36 },
       { a: 36, b: 16, c: 48 },
       { a: 10, b: 20, c: 30, d: 40 },

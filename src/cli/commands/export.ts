@@ -3,10 +3,11 @@ import { basename, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
 import { toCsv } from '../../export/csv-text.js';
 import { LONG_COLUMNS, longRows, NOTE_COLUMNS, noteRows, orderLevels, wideTable, type ExportLevel } from '../../export/level-export.js';
+import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { plural } from '../../text/cells.js';
 import { readLevel } from '../../session/session-files.js';
-import type { Io } from '../io.js';
+import { writeData, type Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -22,6 +23,7 @@ export function exportCommand(args: string[], io: Io): number {
     throw new UsageError(`exine export: --format must be long, wide or notes, not "${values.format}"`);
   }
   const out = values.out === undefined ? null : resolve(io.cwd, values.out);
+  if (values.out !== undefined) refuseOwnInput('export', values.out, positionals, io.cwd);
   if (out && existsSync(out) && !values.force) throw new ExineError(`${values.out} already exists; add --force to replace it`);
   const levels: ExportLevel[] = positionals.map((file) => {
     const { state, warnings } = readLevel(resolve(io.cwd, file));
@@ -37,6 +39,6 @@ export function exportCommand(args: string[], io: Io): number {
   if (out) {
     writeFileAtomic(out, csv, values.force === true);
     io.stderr.write(`exine: wrote ${plural(levels.length, 'level')} to ${values.out}\n`);
-  } else io.stdout.write(csv);
+  } else writeData(io.stdout, csv);
   return 0;
 }

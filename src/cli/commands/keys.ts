@@ -1,13 +1,16 @@
 import { readFileSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { extname, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
+import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { addTypesToKeymap, type AddedType } from '../../keymap/add-types.js';
 import { drawLayout } from '../../keymap/draw-layout.js';
+import { keyCardSvg, PAPER, type Paper } from '../../keymap/key-card.js';
 import { isBundledKeymap, loadKeymap, resolveKeymapPath } from '../../keymap/load-keymap.js';
 import { plural } from '../../text/cells.js';
 import type { Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
+import { keysBuild, keysFromList } from './keys-make.js';
 
 /** The types a session added while counting, with the keys they got there. */
 async function addedTypesOf(sessionPath: string, cwd: string): Promise<AddedType[]> {
@@ -20,10 +23,31 @@ async function addedTypesOf(sessionPath: string, cwd: string): Promise<AddedType
   });
 }
 
+function writeCard(name: string, card: string, paperFlag: string | undefined, force: boolean, io: Io): number {
+  const paper = (paperFlag ?? 'a4').toLowerCase();
+  if (!(paper in PAPER)) throw new UsageError(`exine keys: --paper must be ${Object.keys(PAPER).join(' or ')}, not "${paperFlag}"`);
+  const ext = extname(card).toLowerCase();
+  if (ext !== '.svg' && ext !== '.txt') throw new UsageError(`exine keys: --card must end in .svg (a drawing to print) or .txt (plain text), not "${card}"`);
+  const { keymap } = loadKeymap(name, io.cwd);
+  const body = ext === '.svg' ? keyCardSvg(keymap, paper as Paper) : `${drawLayout(keymap)}\n`;
+  writeFileAtomic(resolve(io.cwd, card), body, force);
+  io.stdout.write(`${card}: key card of ${keymap.name}${ext === '.svg' ? ` (${paper.toUpperCase()} landscape; print at 100%)` : ''}\n`);
+  return 0;
+}
+
 export async function keysCommand(args: string[], io: Io): Promise<number> {
-  const { values, positionals } = parseFlags('keys', args, { 'add-types': { type: 'string' } });
+  const sub = args[0];
+  if (sub === 'new' || sub === 'edit') return keysBuild(sub, args.slice(1), io);
+  if (sub === 'from-list') return keysFromList(args.slice(1), io);
+  const { values, positionals } = parseFlags('keys', args, {
+    'add-types': { type: 'string' },
+    card: { type: 'string' },
+    paper: { type: 'string' },
+    force: { type: 'boolean' },
+  });
   if (positionals.length !== 1) throw new UsageError('exine keys: give one keymap PATH or bundled NAME (see exine keys --help)');
   const name = positionals[0] as string;
+  if (values.card !== undefined) return writeCard(name, values.card, values.paper, values.force === true, io);
   const from = values['add-types'];
   if (from === undefined) {
     const { keymap } = loadKeymap(name, io.cwd);
@@ -34,6 +58,8 @@ export async function keysCommand(args: string[], io: Io): Promise<number> {
   if (isBundledKeymap(path)) {
     throw new UsageError(`exine keys: ${name} is a bundled keymap and is never changed; copy it (cp ${path} my-keymap.json) and add the types to the copy`);
   }
+  // The keymap is rewritten on purpose; the session it learns from must never be.
+  refuseOwnInput('keys', path, [from], io.cwd);
   loadKeymap(name, io.cwd);
   const types = await addedTypesOf(from, io.cwd);
   if (types.length === 0) {

@@ -1,10 +1,9 @@
 import { resolve } from 'node:path';
 import { UsageError } from '../../errors.js';
 import { levelSummary, type LevelSummary } from '../../export/level-summary.js';
-import { GROUPS } from '../../keymap/groups.js';
 import { readLevel } from '../../session/session-files.js';
 import { ci, fit, plural, pct, right } from '../../text/cells.js';
-import type { Io } from '../io.js';
+import { terminalJson, type Io } from '../io.js';
 import { parseFlags, positiveInteger } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -35,7 +34,7 @@ function textReport(s: LevelSummary): string[] {
     s.finishedAt ? `finished ${s.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
     `pollen sum ${s.pollenSum} · ${plural(s.grains, 'grain')} · ${plural(s.types, 'type')} in the sum · ${plural(s.traverses, 'traverse')} · ${plural(s.sittings, 'sitting')}${s.voided ? ` · ${plural(s.voided, 'grain')} voided in the audit` : ''}`,
     ...(s.slides.length > 1 ? [`by slide: ${s.slides.map((c) => `${c.slide ?? '–'} ${plural(c.grains, 'grain')} (sum ${c.pollenSum}, from traverse ${c.firstTraverse})`).join(' · ')}`] : []),
-    `groups: ${GROUPS.filter((g) => s.groups[g] > 0 || s.sumGroups.includes(g))
+    `groups: ${s.groupOrder.filter((g) => (s.groups[g] ?? 0) > 0 || s.sumGroups.includes(g))
       .map((g) => `${g} ${s.groups[g]}${s.sumGroups.includes(g) ? '' : '*'}`)
       .join(' · ')}`,
     '',
@@ -85,6 +84,6 @@ export function summaryCommand(args: string[], io: Io): number {
   const { state, warnings } = readLevel(resolve(io.cwd, positionals[0] as string));
   for (const w of warnings) io.stderr.write(`exine: ${w}\n`);
   const summary = levelSummary(state, rarefyAt);
-  io.stdout.write(values.json ? `${JSON.stringify(summary, null, 2)}\n` : `${textReport(summary).join('\n')}\n`);
+  io.stdout.write(values.json ? `${terminalJson(JSON.stringify(summary, null, 2))}\n` : `${textReport(summary).join('\n')}\n`);
   return 0;
 }
