@@ -72,7 +72,7 @@ const ALL: readonly (Column & { keep: boolean })[] = [
   { name: 'time', width: 5, keep: true, cell: (r) => c(r.status === 'planned' || r.status === 'unreadable' ? '' : shortTime(r.countingMs)) },
   { name: 'analyst', width: 12, keep: false, cell: (r) => c(r.analyst ?? '') },
   { name: 'last', width: 10, keep: false, cell: (r) => c(r.lastAt ? r.lastAt.slice(0, 10) : '') },
-  { name: 'file', width: 9, keep: true, cell: (r) => integrityText(r) },
+  { name: 'integrity', width: 9, keep: true, cell: (r) => integrityText(r) },
 ];
 
 /** Right-aligned numbers read best in a column; names and words stay left. */

@@ -29,6 +29,8 @@ export interface CountScreenProps {
   readonly rareThreshold?: number;
   /** Remind the analyst to rest the eyes after this many minutes of a sitting; null: never. */
   readonly breakMinutes?: number | null;
+  /** Called on quit instead of ending the program (the core view takes the terminal back); the session is shut down first. */
+  readonly onQuit?: () => void;
 }
 
 /**
@@ -70,7 +72,7 @@ function MainArea({ main, theme }: { main: CountMain; theme: Theme }) {
 }
 
 /** The counting screen: keys go to the session, and the session's snapshot is drawn as its view (count-view.ts). */
-export function CountScreen({ session, columns, rows, bell = true, rareThreshold = 2, breakMinutes = null }: CountScreenProps) {
+export function CountScreen({ session, columns, rows, bell = true, rareThreshold = 2, breakMinutes = null, onQuit }: CountScreenProps) {
   const { exit } = useApp();
   const terminal = useTerminalSize();
   const snapshot = useSyncExternalStore(session.subscribe, session.getSnapshot);
@@ -86,7 +88,8 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   useRawKeys((keys) => {
     if (session.pressAll(keys) === 'quit') {
       session.shutdown();
-      exit();
+      if (onQuit) onQuit();
+      else exit();
     }
   });
 
