@@ -1,3 +1,4 @@
+import { basename } from 'node:path';
 import { Box, useApp } from 'ink';
 import { useEffect, useRef, useState } from 'react';
 import type { CoreModel } from '../core/core-model.js';
@@ -6,6 +7,7 @@ import type { OverviewRow } from '../core/overview.js';
 import { CountingSession } from '../session/counting-session.js';
 import type { OpenedLevel } from '../session/session-files.js';
 import { levelTable } from '../stats/level-table.js';
+import type { KeyPress } from '../input/key-press.js';
 import { CountScreen } from './count-screen.js';
 import { coreKey } from './core-keys.js';
 import { coreScreenView, START_CORE_UI, type CoreUi } from './core-view.js';
@@ -42,18 +44,12 @@ function CoreTable({ model, ui, columns, rows }: { model: CoreModel; ui: CoreUi;
   );
 }
 
-/** Keys of the core view; a separate component, so its key reader is gone while a level is counted. */
-function CoreKeys({ onKeys }: { onKeys: (keys: Parameters<Parameters<typeof useRawKeys>[0]>[0]) => void }) {
-  useRawKeys(onKeys);
-  return null;
-}
-
 /**
  * The core view: the folder's levels and what to count next. Enter counts the
  * selected level in the counting screen, in the same terminal; quitting it comes
  * back here. The folder is polled, and only changed files are read again.
  */
-export function CoreScreen({ source, openLevel, columns, rows, pollMs = 1000, count = {}, onSession }: CoreScreenProps) {
+export function CoreScreen({ source, openLevel, columns, rows, pollMs = 1000, count: countOptions = {}, onSession }: CoreScreenProps) {
   const { exit } = useApp();
   const terminal = useTerminalSize();
   const [model, setModel] = useState<CoreModel>(() => source.read());
@@ -84,20 +80,47 @@ export function CoreScreen({ source, openLevel, columns, rows, pollMs = 1000, co
     return () => clearInterval(timer);
   }, [source, pollMs, session]);
 
-  const open = (row: OverviewRow) => {
+  const sessionRef = useRef<CountingSession | null>(null);
+
+  const open = (row: OverviewRow): CountingSession | null => {
     try {
       const opened = openLevel(row);
       const s = new CountingSession(opened.writer, opened.state, opened.notices, opened.unconfirmed);
+      sessionRef.current = s;
       onSession?.(s);
       setSession(s);
+      return s;
     } catch (error) {
       uiRef.current = { ...uiRef.current, message: `not opened: ${(error as Error).message}` };
       setUi(uiRef.current);
+      return null;
     }
   };
 
-  const onKeys = (presses: Parameters<Parameters<typeof useRawKeys>[0]>[0]) => {
-    for (const press of presses) {
+  const back = (s: CountingSession) => {
+    const { grains, pollenSum } = levelTable(s.getSnapshot().state);
+    sessionRef.current = null;
+    onSession?.(null);
+    setSession(null);
+    refresh(`saved ${basename(s.path)}: ${grains} grains, pollen sum ${pollenSum}`);
+  };
+
+  /** Keys for the level being counted; true when its screen quit. */
+  const count = (s: CountingSession, presses: readonly KeyPress[]): boolean => {
+    if (s.pressAll(presses) !== 'quit') return false;
+    s.shutdown();
+    back(s);
+    return true;
+  };
+
+  // One reader of keys for both screens, never unmounted: keys typed right after Enter go to the level, in order.
+  useRawKeys((presses) => {
+    const counting = sessionRef.current;
+    if (counting) {
+      count(counting, presses);
+      return;
+    }
+    for (const [i, press] of presses.entries()) {
       const { ui: next, action } = coreKey(uiRef.current, press, modelRef.current.rows.length);
       uiRef.current = next;
       if (action?.kind === 'quit') {
@@ -107,29 +130,18 @@ export function CoreScreen({ source, openLevel, columns, rows, pollMs = 1000, co
       }
       if (action?.kind === 'open') {
         const row = modelRef.current.rows[action.index];
-        setUi({ ...next, message: null });
         uiRef.current = { ...next, message: null };
-        if (row) open(row);
-        // Keys after Enter in the same chunk belong to the counting screen, which is not drawn yet: they are not taken here.
+        setUi(uiRef.current);
+        const s = row ? open(row) : null;
+        if (s) count(s, presses.slice(i + 1));
         return;
       }
     }
     setUi(uiRef.current);
-  };
+  });
 
   if (session) {
-    const back = () => {
-      const { grains, pollenSum } = levelTable(session.getSnapshot().state);
-      onSession?.(null);
-      setSession(null);
-      refresh(`saved ${session.path}: ${grains} grains, pollen sum ${pollenSum}`);
-    };
-    return <CountScreen session={session} columns={columns} rows={rows} bell={count.bell ?? true} rareThreshold={count.rareThreshold ?? 2} breakMinutes={count.breakMinutes ?? null} onQuit={back} />;
+    return <CountScreen session={session} columns={columns} rows={rows} bell={countOptions.bell ?? true} rareThreshold={countOptions.rareThreshold ?? 2} breakMinutes={countOptions.breakMinutes ?? null} readKeys={false} />;
   }
-  return (
-    <>
-      <CoreKeys onKeys={onKeys} />
-      <CoreTable model={model} ui={ui} columns={columns ?? terminal.columns} rows={rows ?? terminal.rows} />
-    </>
-  );
+  return <CoreTable model={model} ui={ui} columns={columns ?? terminal.columns} rows={rows ?? terminal.rows} />;
 }
