@@ -1,6 +1,7 @@
 // npm run bench: speed measured as ratios against baselines taken in the same run, on the same disk.
 // `npm run bench -- --only tally,resume` runs the named sections alone; --suite adds the test-suite timing.
 import { cpus } from 'node:os';
+import { benchCoreView } from './core-view.js';
 import { benchCraftedInput } from './crafted-input.js';
 import { benchFirstFrame } from './first-frame.js';
 import { benchKill } from './kill-bench.js';
@@ -23,6 +24,7 @@ const SECTIONS: Section[] = [
   { name: 'crafted', run: benchCraftedInput },
   { name: 'lock-race', run: () => benchLockRace(Number(process.env.EXINE_LOCK_ROUNDS ?? 1000)) },
   { name: 'kill', run: () => benchKill(Number(process.env.EXINE_KILL_ROUNDS ?? 1000)), optIn: true },
+  { name: 'core-view', run: () => benchCoreView() },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];
 

@@ -30,7 +30,8 @@ export interface CoreScreenProps {
   readonly onSession?: (session: CountingSession | null) => void;
 }
 
-function CoreTable({ model, ui, columns, rows }: { model: CoreModel; ui: CoreUi; columns: number; rows: number }) {
+/** The core view drawn from a model; the screen adds keys and polling. */
+export function CoreTable({ model, ui, columns, rows }: { model: CoreModel; ui: CoreUi; columns: number; rows: number }) {
   const theme = themeFor();
   const view = coreScreenView(model, ui, { columns, rows });
   return (

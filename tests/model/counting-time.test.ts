@@ -4,7 +4,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { auditLevel, DEFAULT_DOUBLE_PRESS_MS, DEFAULT_GAP_MS } from '../../src/audit/level-audit.js';
 import type { EventPayload, OpenEvent, SessionEvent } from '../../src/model/events.js';
-import { COUNTING_GAP_MS, foldEvents } from '../../src/model/fold.js';
+import { applyEvent, COUNTING_GAP_MS, foldEvents } from '../../src/model/fold.js';
 import { readForAudit } from '../../src/audit/read-audit.js';
 import { TINY_KEYMAP, grain, openPayload } from '../helpers/levels.js';
 
@@ -52,5 +52,13 @@ describe('counting time in the fold', () => {
         expect(state.countingMs).toBe(auditLevel(events, state, OPTIONS).countingMs);
       }),
     );
+  });
+
+  it('leaves the state it folds from as it was', () => {
+    const open = { ...openPayload(), seq: 1, at: '2026-11-02T09:00:00.000Z' } as OpenEvent;
+    const s1 = foldEvents(open, TINY_KEYMAP, [open, { type: 'sitting', sitting: 1, seq: 2, at: '2026-11-02T09:00:01.000Z' } as SessionEvent]);
+    const s2 = applyEvent(s1, { ...grain('Alnus'), seq: 3, at: '2026-11-02T09:00:04.000Z' } as SessionEvent);
+    expect(s1.countingClock.at).toBe('2026-11-02T09:00:01.000Z');
+    expect([s1.countingMs, s2.countingMs]).toEqual([0, 3000]);
   });
 });
