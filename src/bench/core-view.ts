@@ -140,12 +140,20 @@ export async function benchCoreView(levels = 150, grains = 500, runs = 5): Promi
       tails.set(target, { seq, hash });
       parseOne.push(await timed(() => bare([target])));
       let after = before;
+      // The screen stays mounted across a refresh: it draws the new model in the same Ink instance.
+      const out = sink(80, 24);
+      let frame = out.written();
+      const live = render(createElement(CoreTable, { model: before, ui: START_CORE_UI, columns: 80, rows: 24 }), { stdout: out as unknown as NodeJS.WriteStream, patchConsole: false, exitOnCtrlC: false, debug: true });
+      await frame;
       refresh.push(
         await timed(async () => {
           after = source.refresh() ?? before;
-          await drawOnce(after);
+          frame = out.written();
+          live.rerender(createElement(CoreTable, { model: after, ui: START_CORE_UI, columns: 80, rows: 24 }));
+          await frame;
         }),
       );
+      live.unmount();
       stillSame.push(after.rows.filter((row, i) => row.file !== null && row === before.rows[i]).length);
     }
     const A = summarise(parseAll).median;
@@ -162,7 +170,7 @@ export async function benchCoreView(levels = 150, grains = 500, runs = 5): Promi
       `    one frame of the core table (Ink)              ${fmt(F)}`,
       `    core view, first frame (read all + draw)       ${fmt(C)}   ${ratio(C, A + F)} of parse + frame (goal ≤ 1.50x)`,
       `    bare JSON.parse of the one level counted on    ${fmt(P1)}`,
-      `    refresh after it was counted on (+ draw)       ${fmt(R)}   ${ratio(R, P1 + F)} of its parse + frame; ${ratio(R, C)} of a first frame`,
+      `    refresh after it was counted on (+ redraw)     ${fmt(R)}   ${ratio(R, P1 + F)} of its parse + a first frame; ${ratio(R, C)} of a first frame`,
       `    level rows kept as they were at the refresh    ${Math.min(...stillSame)} of ${levels} (the level counted on is read again alone)`,
     ];
   } finally {

@@ -180,7 +180,15 @@ Options of init
   --rule-mode, --min-sum   default stop rules, as for exine count
   --tablets T --per-tablet S [--per-tablet-sd SD]   the marker batch
                       (volume or mass is per level: give it to exine count)
-  -h, --help          this help`,
+  -h, --help          this help
+
+exine core DIR shows every level, planned ones too: status, pollen sum and
+grains still needed, squared-chord distance to the level above, time,
+integrity, and strips of the commonest taxa. ? marks a level unlike both its
+neighbours, ◂ the planned depth to count next. ↑↓ select, Enter counts the
+level (Ctrl-C there comes back), q quits. The view follows files that change.
+  --plain             the same as text        --json   everything, for a script
+  --quiet             no bells in the counting screen`,
   keys: `Usage
   exine keys PATH|NAME
   exine keys PATH --add-types SESSION
