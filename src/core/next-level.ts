@@ -17,6 +17,12 @@ export interface NeighbourDistance {
  * published value.
  */
 export const ODD_FACTOR = 2;
+/**
+ * Levels with a smaller pollen sum are left out of the comparison: the first
+ * grains of a level just started would make it the most dissimilar of all by
+ * counting noise alone (our choice).
+ */
+export const MIN_COMPARED_SUM = 100;
 /** Fewer neighbour distances than this give no yardstick: nothing is flagged. */
 export const MIN_DISTANCES = 3;
 
@@ -53,13 +59,13 @@ function median(values: readonly number[]): number {
 const tidy = (n: number) => Number(n.toFixed(6));
 
 /**
- * What to count next. Levels with a depth and a pollen sum are compared with the
- * next such level down; planned depths are those rows with status "planned".
+ * What to count next. Levels with a depth and a pollen sum of at least
+ * MIN_COMPARED_SUM are compared with the next such level down; planned depths are those rows with status "planned".
  * Pairs that touch a level flagged as odd are passed over for the suggestion
  * while another pair is left: an odd level is checked first, not refined around.
  */
 export function nextLevel(rows: readonly OverviewRow[]): NextLevel {
-  const counted = rows.filter((r): r is OverviewRow & { depth: number; shares: Record<string, number> } => r.depth !== null && r.shares !== null);
+  const counted = rows.filter((r): r is OverviewRow & { depth: number; shares: Record<string, number> } => r.depth !== null && r.shares !== null && r.pollenSum >= MIN_COMPARED_SUM);
   const distances: NeighbourDistance[] = [];
   for (let i = 1; i < counted.length; i++) {
     const a = counted[i - 1] as (typeof counted)[number];
@@ -84,7 +90,7 @@ export function nextLevel(rows: readonly OverviewRow[]): NextLevel {
 function suggest(rows: readonly OverviewRow[], distances: readonly NeighbourDistance[], odd: readonly OddLevel[]): Suggestion {
   if (distances.length === 0) {
     const first = rows.find((r) => r.status === 'planned' && r.depth !== null);
-    const reason = 'two counted levels are needed to compare';
+    const reason = `two levels with a pollen sum of ${MIN_COMPARED_SUM} or more are needed to compare`;
     return first ? { kind: 'none', reason: `${reason}; the first planned depth is ${first.depth} cm` } : { kind: 'none', reason };
   }
   const flagged = new Set(odd.map((o) => o.depth));

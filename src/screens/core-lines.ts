@@ -1,4 +1,5 @@
 import type { CoreModel } from '../core/core-model.js';
+import { MIN_COMPARED_SUM } from '../core/next-level.js';
 import type { OverviewRow } from '../core/overview.js';
 import type { Strip } from '../core/strips.js';
 import { fit, right } from '../text/cells.js';
@@ -104,7 +105,7 @@ export function rowFacts(model: CoreModel): RowFacts[] {
   const s = model.next.suggestion;
   const next = s.kind === 'planned' ? s.depth : null;
   return model.rows.map((r) => ({
-    distanceAbove: r.shares !== null && r.depth !== null ? (byLower.get(r.depth) ?? null) : null,
+    distanceAbove: r.shares !== null && r.depth !== null && r.pollenSum >= MIN_COMPARED_SUM ? (byLower.get(r.depth) ?? null) : null,
     odd: r.depth !== null && r.shares !== null && odd.has(r.depth),
     next: r.depth !== null && r.status === 'planned' && r.depth === next,
   }));

@@ -5,10 +5,11 @@ import type { OverviewRow } from '../../src/core/overview.js';
 import { proportions, squaredChord } from '../../src/stats/squared-chord.js';
 
 /** A row with only what the comparison reads: depth, status and the pollen-sum shares. */
-function row(depth: number, counts: Record<string, number> | null): OverviewRow {
+function row(depth: number, counts: Record<string, number> | null, pollenSum = 300): OverviewRow {
   return {
     depth,
     status: counts ? 'finished' : 'planned',
+    pollenSum: counts ? pollenSum : 0,
     shares: counts ? proportions(counts) : null,
   } as OverviewRow;
 }
@@ -39,7 +40,13 @@ describe('what to count next', () => {
   });
 
   it('needs two counted levels', () => {
-    expect(nextLevel([row(10, { Alnus: 1 }), row(20, null)]).suggestion).toEqual({ kind: 'none', reason: 'two counted levels are needed to compare; the first planned depth is 20 cm' });
+    expect(nextLevel([row(10, { Alnus: 1 }), row(20, null)]).suggestion).toEqual({ kind: 'none', reason: 'two levels with a pollen sum of 100 or more are needed to compare; the first planned depth is 20 cm' });
+  });
+
+  it('leaves out a level just started: its first grains are noise', () => {
+    const n = nextLevel([row(10, { Alnus: 80, Betula: 20 }), row(20, { Poaceae: 11 }, 11), row(30, { Alnus: 70, Betula: 30 }), row(25, null)]);
+    expect(n.distances.map((d) => [d.upper, d.lower])).toEqual([[10, 30]]);
+    expect(n.suggestion).toMatchObject({ kind: 'planned', depth: 25 });
   });
 
   it('flags a level unlike both its neighbours, whose neighbours are alike, and passes over it for the suggestion', () => {

@@ -41,8 +41,9 @@ describe('the core overview', () => {
     writeCore(dir, { depths: [] });
     // Counted under an old name: the keymap has Gramineae, the core merges it into Poaceae.
     const old = { ...TINY_KEYMAP, keys: { ...TINY_KEYMAP.keys, g: { taxon: 'Gramineae', group: 'herbs' as const } } };
-    writeFileSync(join(dir, 'copied.jsonl'), sessionText([openPayload(old, { depth: 12, site: 'Other Mere', core: 'OM-2' }), grain('Alnus'), grain('Gramineae', 1, 'g')]));
-    writeCoreLevel(dir, 24, { Alnus: 1, Poaceae: 1 });
+    const grains = [...Array(60).fill(grain('Alnus')), ...Array(60).fill(grain('Gramineae', 1, 'g'))];
+    writeFileSync(join(dir, 'copied.jsonl'), sessionText([openPayload(old, { depth: 12, site: 'Other Mere', core: 'OM-2' }), ...grains]));
+    writeCoreLevel(dir, 24, { Alnus: 60, Poaceae: 60 });
     const m = read(dir);
     expect(m.rows[0]?.shares).toEqual({ Alnus: 0.5, Poaceae: 0.5 });
     expect(m.rows[0]?.outside.join(', ')).toMatch(/core Other Mere OM-2/);
