@@ -10,7 +10,7 @@ Commands
   summary FILE   statistics and stop-rule state of a level
   export FILE…   levels as CSV (long, wide, or their notes)
   verify FILE    check a session file's integrity chain
-  keys PATH      check a keymap and show its layout
+  keys PATH      check or make a keymap (new, edit, from-list); print its card
   prefs          show or set preferences (bell, rare, break, keymap, analyst)
   core init DIR  make a core folder (core.json: keymap, rules, markers, depths)
   core DIR       the levels of a core at a glance
@@ -196,10 +196,29 @@ Options of init
   -h, --help          this help`,
   keys: `Usage
   exine keys PATH|NAME
+  exine keys PATH|NAME --card card.svg|card.txt [--paper a4|letter] [--force]
+  exine keys new FILE [--name NAME] [--force]
+  exine keys edit FILE
+  exine keys from-list LIST --out FILE [--name NAME] [--force]
   exine keys PATH --add-types SESSION
 
 Checks a keymap file and draws its layout. NAME is a bundled keymap
 (temperate-lowland, keypad).
+
+--card writes a key card to print and keep beside the microscope: an SVG
+drawing (A4 or Letter, landscape) or plain text.
+
+new makes a keymap at the keyboard: press a key, type the taxon, Enter, type
+its group (a few letters; Enter alone repeats the last; a new name makes a
+group of your own and asks its role). Enter on an empty taxon saves and ends.
+edit changes a keymap file in place, keeping its layout (a used key: type a new
+taxon, or "-" to free it).
+
+from-list makes a keymap from a taxon list, one "taxon, group" a line (a third
+field gives a new group's role: sum, outside, marker, indeterminable), or a CSV
+with columns taxon and group (and role). Keys: the taxon's initial when free,
+else its second letter, else the next free key after the initial (then digits,
+signs, capitals); the report says which taxon got which key and why.
 
 With --add-types, the types added while counting SESSION (the = key) are
 written into your keymap file on the keys they had, so the next level starts
@@ -207,7 +226,9 @@ with them. The file keeps its layout; a bundled keymap is never changed (copy
 it first).
 
 Examples
-  exine keys keypad
+  exine keys keypad --card keypad-card.svg
+  exine keys new mire.json
+  exine keys from-list taxa.csv --out mire.json
   cp keymaps/temperate-lowland.json km1-keys.json
   exine keys km1-keys.json --add-types km1-084cm.jsonl`,
 };
