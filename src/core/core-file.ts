@@ -1,11 +1,11 @@
 import { findNodeAtLocation, parseTree, type Node } from 'jsonc-parser';
-import { z } from 'zod';
 import { lineOf, parseStrictJson } from '../keymap/json-source.js';
-import type { Keymap } from '../keymap/keymap.js';
+import { hasMarkerKey, type Keymap } from '../keymap/keymap.js';
 import { checkKeymapValue } from '../keymap/parse-keymap.js';
 import type { RuleSet } from '../rules/rule-set.js';
 import { hasUnseen, visible } from '../text/visible.js';
 import { describeIssue } from '../validation/describe-issue.js';
+import { coreSchemaModule } from './deferred-core-schema.js';
 import { nearestName } from './nearest-name.js';
 
 /** The file that makes a folder a core. */
@@ -69,35 +69,6 @@ const ALIASES: Readonly<Record<string, string>> = {
   width: 'halfWidth',
 };
 
-const name = z.string().trim().min(1).max(200);
-const wholeAbove0 = z.number().int().positive().max(Number.MAX_SAFE_INTEGER);
-// Bounds as the flags of exine count take them (cli/rule-flags.ts): a fraction strictly between 0 and 1.
-const fraction = z.number().gt(0).lt(1);
-
-const shape = z.object({
-  format: z.literal(CORE_FORMAT).optional(),
-  site: name,
-  core: name,
-  keymap: z.unknown(),
-  rules: z.object({
-    targetSum: wholeAbove0.nullable().optional(),
-    precision: z
-      .object({ halfWidth: z.number().gt(0).max(50), share: z.number().gt(0).max(100).nullable().optional(), taxa: z.array(name).min(1).nullable().optional() })
-      .nullable()
-      .optional(),
-    coverage: fraction.nullable().optional(),
-    plateau: wholeAbove0.nullable().optional(),
-    markers: wholeAbove0.nullable().optional(),
-    concError: fraction.nullable().optional(),
-    mode: z.enum(['all', 'any']).optional(),
-    minSum: wholeAbove0.nullable().optional(),
-  }),
-  markerBatch: z.object({ tablets: wholeAbove0, perTablet: z.number().positive(), perTabletSd: z.number().nonnegative().nullable().optional() }).nullable().optional(),
-  depths: z.array(z.number().nonnegative().max(1e6)).max(5000).optional(),
-  synonyms: z.record(name, name).optional(),
-  summaryGroups: z.array(z.object({ name, taxa: z.array(name).min(1) })).optional(),
-});
-
 /** The line of the value at `path`, or of the nearest enclosing value that exists. */
 function lineAt(text: string, root: Node | undefined, path: readonly (string | number)[]): number {
   if (!root) return 1;
@@ -159,7 +130,7 @@ export function parseCoreFile(text: string, source: string): CoreResult {
     const line = lineAt(body, root, [...unknown.path, unknown.field]);
     return fail(line, `"${visible(where)}" is not a field of core.json${unknown.hint ? ` (did you mean "${[...unknown.path, unknown.hint].join('.')}"?)` : ''}`);
   }
-  const parsed = shape.safeParse(json.value, { reportInput: true });
+  const parsed = coreSchemaModule().coreShape.safeParse(json.value, { reportInput: true });
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
     return fail(lineAt(body, root, (issue?.path ?? []) as (string | number)[]), describeIssue(issue));
@@ -189,7 +160,7 @@ export function parseCoreFile(text: string, source: string): CoreResult {
   const taxa = new Set(Object.values(keymap.keymap.keys).map((b) => b.taxon));
   const stranger = rules.precision?.taxa?.find((t) => !taxa.has(t));
   if (stranger) return fail(ruleLine('precision'), `"rules.precision.taxa" names "${visible(stranger)}", which is not a taxon of the keymap`);
-  if ((rules.markers !== null || rules.concError !== null) && !Object.values(keymap.keymap.keys).some((b) => b.group === 'markers')) {
+  if ((rules.markers !== null || rules.concError !== null) && !hasMarkerKey(keymap.keymap)) {
     return fail(ruleLine(rules.markers !== null ? 'markers' : 'concError'), `marker rules need a key for the markers group, and keymap "${keymap.keymap.name}" has none`);
   }
   if (rules.concError !== null && !raw.markerBatch) return fail(ruleLine('concError'), '"rules.concError" needs "markerBatch" (the tablets, and the count per tablet of their batch)');

@@ -51,3 +51,11 @@ export function stillPlanned(config: CoreConfig, levels: readonly CoreLevel[]): 
   const counted = new Set(levels.map((l) => l.depth));
   return config.depths.filter((d) => !counted.has(d));
 }
+
+/** Where a level stands: planned (no file yet) is the core view's; a file is one of the other three. */
+export type LevelStatus = 'planned' | 'in progress' | 'rules met' | 'finished';
+
+export function statusOf(state: Pick<LevelState, 'finishedAt' | 'rulesMet'>): Exclude<LevelStatus, 'planned'> {
+  if (state.finishedAt) return 'finished';
+  return state.rulesMet ? 'rules met' : 'in progress';
+}

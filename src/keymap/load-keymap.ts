@@ -1,12 +1,12 @@
 import { isUtf8 } from 'node:buffer';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { ExineError } from '../errors.js';
+import { packageDir } from '../io/package-dir.js';
 import type { Keymap } from './keymap.js';
 import { parseKeymap } from './parse-keymap.js';
 
-export const BUNDLED_KEYMAP_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../keymaps');
+export const BUNDLED_KEYMAP_DIR = join(packageDir(), 'keymaps');
 export const DEFAULT_KEYMAP = 'temperate-lowland';
 
 /** A path (from `cwd`), or the name of a bundled keymap ("keypad" finds keymaps/keypad.json). */

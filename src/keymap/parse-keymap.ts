@@ -1,7 +1,7 @@
 import { findNodeAtLocation, parseTree, type Node } from 'jsonc-parser';
-import { z } from 'zod';
 import { isBuiltInGroup, type GroupDef } from './groups.js';
 import { lineOf, parseStrictJson } from './json-source.js';
+import { keymapShapeOf } from './keymap-shape.js';
 import {
   ACTION_NAMES,
   DEFAULT_ACTIONS,
@@ -17,19 +17,6 @@ import { resolveGroups } from './resolve-groups.js';
 import { describeIssue } from '../validation/describe-issue.js';
 import { hasUnseen, UNSEEN, visible } from '../text/visible.js';
 
-const keymapShape = z.object({
-  name: z.string().trim().min(1),
-  keys: z.record(
-    z.string(),
-    z.object({ taxon: z.string().trim().min(1), group: z.string(), inSum: z.literal(false).optional() }).loose(),
-  ),
-  // null: the action has no key (a keymap copied into a session file says so for an action whose default key is a taxon's).
-  actions: z.record(z.string(), z.string().nullable()).optional(),
-  sum: z.array(z.string()).optional(),
-  groups: z.unknown().optional(),
-  // Only in a copy held by a session file: the key order, which the "keys" object cannot keep for digits.
-  order: z.array(z.string()).optional(),
-}).loose();
 
 /** The fields a person writes in a keymap file; anything else is a mistake worth naming. */
 export const TOP_FIELDS = ['name', 'keys', 'actions', 'sum', 'groups'] as const;
@@ -123,9 +110,9 @@ function keyOrder(raw: Record<string, unknown>, given: readonly string[] | undef
  */
 export function checkKeymapValue(value: unknown, source: string, strict = false, order?: readonly string[]): KeymapResult {
   const fail = (message: string): KeymapResult => ({ ok: false, message: `keymap ${source}: ${message}` });
-  const shape = keymapShape.safeParse(value, { reportInput: true });
-  if (!shape.success) return fail(describeIssue(shape.error.issues[0]));
-  const raw = shape.data;
+  const shape = keymapShapeOf(value);
+  if (!shape.ok) return fail(shape.message);
+  const raw = shape.raw;
   if (strict && hasUnseen(raw.name)) return fail(`"name" has a control or invisible character ("${visible(raw.name)}"); type the name plainly`);
 
   const resolved = resolveGroups(raw.groups, raw.sum, strict);

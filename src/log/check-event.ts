@@ -2,7 +2,9 @@ import { checkKeymapValue } from '../keymap/parse-keymap.js';
 import type { Keymap } from '../keymap/keymap.js';
 import { FORMAT_VERSION } from '../model/events.js';
 import { describeIssue } from '../validation/describe-issue.js';
-import { KNOWN_EVENT_TYPES, parseEventObject, type ParsedEvent } from './event-schema.js';
+import { eventSchemaModule } from './deferred-schema.js';
+import type { ParsedEvent } from './event-schema.js';
+import { passesHandCheck } from './hand-checks.js';
 
 /** What is wrong with a line, from physical damage to an event that points at nothing. */
 export type Problem =
@@ -39,17 +41,24 @@ export function checkEventContent(record: Record<string, unknown>, lineNo: numbe
   } else if (record.type === 'open') {
     return bad('bad-event', 'is a second "open" line; only line 1 opens a level');
   }
-  if (typeof record.type === 'string' && !KNOWN_EVENT_TYPES.has(record.type)) {
-    return bad('unknown-type', `has unknown event type ${JSON.stringify(record.type)}; it may come from a newer exine`);
+  let event: ParsedEvent;
+  if (passesHandCheck(record)) event = record as unknown as ParsedEvent;
+  else {
+    // Only now zod: to word what is wrong, or to check a kind that has no hand check.
+    const { KNOWN_EVENT_TYPES, parseEventObject } = eventSchemaModule();
+    if (typeof record.type === 'string' && !KNOWN_EVENT_TYPES.has(record.type)) {
+      return bad('unknown-type', `has unknown event type ${JSON.stringify(record.type)}; it may come from a newer exine`);
+    }
+    const parsed = parseEventObject(record);
+    if (!parsed.ok) return bad('bad-event', `is not a valid event: ${describeIssue(parsed.issue)}`);
+    event = parsed.event;
   }
-  const parsed = parseEventObject(record);
-  if (!parsed.ok) return bad('bad-event', `is not a valid event: ${describeIssue(parsed.issue)}`);
-  if (parsed.event.type === 'open') {
-    const keymap = checkKeymapValue(parsed.event.keymap, 'recorded in line 1');
+  if (event.type === 'open') {
+    const keymap = checkKeymapValue(event.keymap, 'recorded in line 1');
     if (!keymap.ok) return bad('bad-event', `holds an invalid keymap: ${keymap.message}`);
-    return { ok: true, event: parsed.event, keymap: keymap.keymap };
+    return { ok: true, event, keymap: keymap.keymap };
   }
-  return { ok: true, event: parsed.event };
+  return { ok: true, event };
 }
 
 /**

@@ -10,7 +10,7 @@ import type { Spike } from '../stats/concentration.js';
  * 3: the keymap copy holds its groups with their roles and its key order, and a
  * type added while counting may be in a group of the keymap's own; a format-2
  * copy reads with the built-in groups, its "sum", and the key order of its object.
- * Also 3: the slide event (a level counted on more than one slide) and the open
+ * 3 also added the slide event (a level counted on more than one slide) and the open
  * line's fromCore; format 2 files read as format 3 on one slide.
  */
 export const FORMAT_VERSION = 3;

@@ -3,7 +3,7 @@ import { roleOf } from '../keymap/keymap.js';
 import type { LevelState } from '../model/level-state.js';
 import { levelReport, type LevelReport } from '../rules/level-report.js';
 import type { Snapshot } from '../session/counting-session.js';
-import { saturationCurve, type SaturationCurve } from '../stats/accumulation.js';
+import { LiveSaturationCurve, type SaturationCurve } from '../stats/accumulation.js';
 import { countLayout, type CountLayout } from './count-layout.js';
 import { headingLines, keysLine, statusArea, stopBannerLine } from './count-lines.js';
 import { helpOverlay } from './help-overlay.js';
@@ -24,10 +24,13 @@ export interface LevelFacts {
   readonly types: ReadonlySet<string>;
 }
 
+// The curve after each key from where the stack changed, not from every grain (one screen per process).
+const liveCurve = new LiveSaturationCurve();
+
 export function levelFacts(state: LevelState, rareThreshold: number): LevelFacts {
   const groupOf = new Map(Object.values(state.keymap.keys).map((b) => [b.taxon, b.group]));
   const types = new Set(Object.keys(state.firstSeen).filter((t) => isTypeRole(roleOf(state.keymap, groupOf.get(t) ?? 'other'))));
-  return { report: levelReport(state), curve: saturationCurve(state), rare: rareTypes(state, rareThreshold), types };
+  return { report: levelReport(state), curve: liveCurve.curve(state), rare: rareTypes(state, rareThreshold), types };
 }
 
 export interface CountViewInput {

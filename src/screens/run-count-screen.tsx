@@ -2,6 +2,7 @@ import { render } from 'ink';
 import { CountingSession } from '../session/counting-session.js';
 import type { OpenedLevel } from '../session/session-files.js';
 import { levelTable } from '../stats/level-table.js';
+import { visible } from '../text/visible.js';
 import { CountScreen } from './count-screen.js';
 
 const SIGNALS = { SIGINT: 2, SIGHUP: 1, SIGTERM: 15 } as const;
@@ -27,7 +28,7 @@ export async function runCountScreen(opened: OpenedLevel, options: { bell?: bool
   });
   const onCrash = (error: unknown) => {
     stop(1);
-    process.stderr.write(`exine: unexpected error, the session was closed: ${(error as Error)?.message ?? error}\n`);
+    process.stderr.write(`exine: unexpected error, the session was closed: ${visible(String((error as Error)?.message ?? error))}\n`);
     process.exit(1);
   };
   process.once('uncaughtException', onCrash);
@@ -39,7 +40,8 @@ export async function runCountScreen(opened: OpenedLevel, options: { bell?: bool
     process.off('uncaughtException', onCrash);
   }
   const table = levelTable(session.getSnapshot().state);
-  for (const notice of opened.notices) process.stdout.write(`on opening: ${notice}\n`);
-  process.stdout.write(`saved ${session.path}: ${table.grains} grains, pollen sum ${table.pollenSum}\n`);
+  // Printed after the screen, outside Ink: escaped here (a lock's host, a file name).
+  for (const notice of opened.notices) process.stdout.write(`on opening: ${visible(notice)}\n`);
+  process.stdout.write(`saved ${visible(session.path)}: ${table.grains} grains, pollen sum ${table.pollenSum}\n`);
   return exitCode;
 }

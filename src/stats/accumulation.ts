@@ -1,5 +1,5 @@
 import { inPollenSum } from '../keymap/keymap.js';
-import type { LevelCounts } from './level-counts.js';
+import type { GrainChain, LevelCounts } from './level-counts.js';
 import { rarefy } from './rarefaction.js';
 
 export interface SaturationCurve {
@@ -28,11 +28,75 @@ export function saturationCurve(state: LevelCounts, points = 60): SaturationCurv
     if (state.firstSeen[g.taxon] === g.seq) types++;
     observed.push(types);
   }
+  return withExpected(state, observed, points);
+}
+
+function withExpected(state: LevelCounts, observed: readonly number[], points: number): SaturationCurve {
   const counts = Object.entries(state.counts)
     .filter(([taxon]) => inPollenSum(state.keymap, taxon))
     .map(([, c]) => c);
-  const n = sumGrains.length;
+  const n = observed.length - 1;
   const at = n === 0 ? [] : [...new Set(Array.from({ length: Math.min(points, n) }, (_, i) => Math.max(1, Math.round(((i + 1) * n) / Math.min(points, n)))))];
   const expected = at.map((k) => rarefy(counts, k, false)?.expected ?? 0);
   return { grains: n, observed, expected, at, sinceNewType: state.sinceNewType };
+}
+
+/**
+ * saturationCurve for a screen that redraws after every key: it keeps the grains of the last
+ * state it saw and, since the fold shares the unchanged bottom of the stack between states,
+ * walks the new stack only down to the first grain it already holds. A grain costs one step,
+ * an undo a few; a void or restore rebuilds from the grain it touched (a property test holds
+ * it equal to saturationCurve after any sequence). The `observed` it returns is its own
+ * array: read it before the next call.
+ */
+export class LiveSaturationCurve {
+  private nodes: GrainChain[] = [];
+  private readonly index = new Map<GrainChain, number>();
+  /** As in SaturationCurve: observed[k] is the types among the first k grains of the sum in `nodes`. */
+  private observed: number[] = [0];
+  private inSum: boolean[] = [];
+  private readonly seen = new Map<string, number>();
+  private keymap: LevelCounts['keymap'] | null = null;
+
+  curve(state: LevelCounts, points = 60): SaturationCurve {
+    if (state.keymap !== this.keymap) this.reset(state.keymap);
+    const fresh: GrainChain[] = [];
+    let s = state.stack;
+    while (s && !this.index.has(s)) {
+      fresh.push(s);
+      s = s.below;
+    }
+    this.truncate(s ? (this.index.get(s) as number) + 1 : 0);
+    for (let i = fresh.length - 1; i >= 0; i--) this.push(fresh[i] as GrainChain);
+    return withExpected(state, this.observed, points);
+  }
+
+  private reset(keymap: LevelCounts['keymap']): void {
+    this.keymap = keymap;
+    this.truncate(0);
+  }
+
+  private truncate(length: number): void {
+    while (this.nodes.length > length) {
+      const node = this.nodes.pop() as GrainChain;
+      this.index.delete(node);
+      if (this.inSum.pop()) {
+        this.observed.pop();
+        const left = (this.seen.get(node.taxon) as number) - 1;
+        if (left === 0) this.seen.delete(node.taxon);
+        else this.seen.set(node.taxon, left);
+      }
+    }
+  }
+
+  private push(node: GrainChain): void {
+    this.index.set(node, this.nodes.length);
+    this.nodes.push(node);
+    const sum = inPollenSum(this.keymap as LevelCounts['keymap'], node.taxon);
+    this.inSum.push(sum);
+    if (!sum) return;
+    const before = this.seen.get(node.taxon) ?? 0;
+    this.seen.set(node.taxon, before + 1);
+    this.observed.push((this.observed.at(-1) as number) + (before === 0 ? 1 : 0));
+  }
 }

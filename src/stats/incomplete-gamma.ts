@@ -1,17 +1,17 @@
 import { createRequire } from 'node:module';
 
 // Loaded on first use, as in special-functions.ts.
-const require = createRequire(import.meta.url);
+const load = createRequire(import.meta.url);
 
 type Gammainc = (x: number, a: number, regularized?: boolean, upper?: boolean) => number;
 type Prefix = (a: number, x: number) => number;
 
 let gammainc: Gammainc | undefined;
 let prefix: Prefix | undefined;
-const stdlibGammainc = () => (gammainc ??= require('@stdlib/math-base-special-gammainc') as Gammainc);
+const stdlibGammainc = () => (gammainc ??= load('@stdlib/math-base-special-gammainc') as Gammainc);
 // Private to the package (no "exports" map); the version is pinned exactly and the
 // tests in tests/stats/special-functions.test.ts would catch a change.
-const stdlibPrefix = () => (prefix ??= require('@stdlib/math-base-special-gammainc/lib/regularised_gamma_prefix.js') as Prefix);
+const stdlibPrefix = () => (prefix ??= load('@stdlib/math-base-special-gammainc/lib/regularised_gamma_prefix.js') as Prefix);
 
 /**
  * The branch of @stdlib's igammaFinal (a port of Boost's) that sums the asymptotic

@@ -4,20 +4,22 @@ import { gammaP, gammaQ } from './incomplete-gamma.js';
 // The @stdlib special functions are many small CommonJS modules: loading them costs
 // tens of milliseconds. They are loaded on first use, so commands and the first
 // frame of the counting screen do not wait for functions they may never call.
-const require = createRequire(import.meta.url);
+// In the bundle, scripts/bundle.mjs turns each load('…') into the bundler's own require:
+// the code is in the chunk, and still runs only on first use.
+const load = createRequire(import.meta.url);
 
 type BetaQuantile = typeof import('@stdlib/stats-base-dists-beta-quantile');
 type ChisquareQuantile = typeof import('@stdlib/stats-base-dists-chisquare-quantile');
 type Gammaln = typeof import('@stdlib/math-base-special-gammaln');
 
-function lazy<F>(id: string): () => F {
+function lazy<F>(get: () => F): () => F {
   let f: F | undefined;
-  return () => (f ??= require(id) as F);
+  return () => (f ??= get());
 }
 
-const beta = lazy<BetaQuantile>('@stdlib/stats-base-dists-beta-quantile');
-const chiQ = lazy<ChisquareQuantile>('@stdlib/stats-base-dists-chisquare-quantile');
-const lgam = lazy<Gammaln>('@stdlib/math-base-special-gammaln');
+const beta = lazy(() => load('@stdlib/stats-base-dists-beta-quantile') as BetaQuantile);
+const chiQ = lazy(() => load('@stdlib/stats-base-dists-chisquare-quantile') as ChisquareQuantile);
+const lgam = lazy(() => load('@stdlib/math-base-special-gammaln') as Gammaln);
 
 /** Quantile of the Beta(a, b) distribution. */
 export const betaQuantile = (p: number, a: number, b: number): number => beta()(p, a, b);

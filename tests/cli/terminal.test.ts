@@ -1,4 +1,3 @@
-import { FORMAT_VERSION } from '../../src/model/events.js';
 import { readdirSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -49,7 +48,7 @@ describe('exine count in a terminal', () => {
     expect(await t.exited()).toBe(0);
     const events = scanLog(readFileSync(join(dir, 'l.jsonl'))).events;
     expect(events[0]).toMatchObject({
-      format: FORMAT_VERSION,
+      format: 3,
       rules: { targetSum: null, precision: { halfWidth: 40, share: 30, taxa: null }, markers: 2, mode: 'all' },
       spike: { tablets: 1, perTablet: 10000, perTabletSd: null, volume: 0.5, mass: null, accumulationRate: null },
     });

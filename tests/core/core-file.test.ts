@@ -70,6 +70,12 @@ describe('core.json', () => {
     expect(m).toMatch(expected);
   });
 
+  it('names the line the unknown field is on', () => {
+    const t = text((v) => { v.rules.target = 300; });
+    const line = t.split('\n').findIndex((l) => l.includes('"target"')) + 1;
+    expect(message(t)).toMatch(new RegExp(`^core/core.json: line ${line}: "rules.target"`));
+  });
+
   it('names both lines of a field given twice', () => {
     const t = text().replace('"site": "Test Mere",', '"site": "Test Mere",\n  "site": "Other",');
     expect(message(t)).toMatch(/line 4: field "site" appears twice \(lines 3 and 4\)/);

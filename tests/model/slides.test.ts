@@ -65,3 +65,19 @@ describe('slides in the fold', () => {
     expect(() => readLevel(path)).toThrow(/line 2 is not a valid event: "slide" must not be empty/);
   });
 });
+
+describe('the hand checks of the new fields agree with the schema', () => {
+  it.each([
+    [{ type: 'slide', slide: 'B', traverse: 2 }, true],
+    [{ type: 'slide', slide: '  ', traverse: 2 }, false],
+    [{ type: 'slide', slide: 'B', traverse: 0 }, false],
+    [{ ...openPayload(), fromCore: { overrides: ['target'] } }, true],
+    [{ ...openPayload(), fromCore: { overrides: 'target' } }, false],
+  ])('%j', async (payload, ok) => {
+    const { passesHandCheck } = await import('../../src/log/hand-checks.js');
+    const { parseEventObject } = await import('../../src/log/event-schema.js');
+    const line = { ...payload, seq: 2, at: '2026-11-02T09:00:00.000Z', prev: 'x' } as Record<string, unknown>;
+    expect(passesHandCheck(line)).toBe(ok);
+    expect(parseEventObject(line).ok).toBe(ok);
+  });
+});

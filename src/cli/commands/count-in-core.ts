@@ -4,6 +4,7 @@ import { UsageError } from '../../errors.js';
 import type { MarkerBatch } from '../../core/core-file.js';
 import { levelFileName } from '../../core/level-name.js';
 import { readCoreConfig } from '../../core/read-core.js';
+import { hasMarkerKey } from '../../keymap/keymap.js';
 import { loadKeymap } from '../../keymap/load-keymap.js';
 import { createLevel, type OpenedLevel } from '../../session/session-files.js';
 import type { Spike } from '../../stats/concentration.js';
@@ -48,7 +49,7 @@ export function openInCore(dir: string, flags: Record<string, string | undefined
   if (rules.concError !== null && !spike) {
     throw new UsageError('exine count: the core\'s stop rules include a concentration error; give the sample\'s --volume (cm³) or --mass (g)');
   }
-  if ((rules.markers !== null || rules.concError !== null) && !Object.values(keymap.keys).some((b) => b.group === 'markers')) {
+  if ((rules.markers !== null || rules.concError !== null) && !hasMarkerKey(keymap)) {
     throw new UsageError(`exine count: the stop rules count markers, and keymap "${keymap.name}" has no key for the markers group`);
   }
   check();

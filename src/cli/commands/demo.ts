@@ -1,14 +1,14 @@
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
 import { freshDemoCopy } from '../../demo/demo-copy.js';
 import { UsageError } from '../../errors.js';
+import { packageDir } from '../../io/package-dir.js';
 import type { Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
 import { drawLiveOnThisTerminal } from '../interactive-terminal.js';
 import { readPreferences } from '../../prefs/preferences.js';
 import { openForCounting, requireTerminal, screenOptions } from './count.js';
 
-export const DEMO_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../../demo-sessions');
+export const DEMO_DIR = join(packageDir(), 'demo-sessions');
 export const DEMO_LEVEL = 'km1-084cm.jsonl';
 
 export async function demoCommand(args: string[], io: Io): Promise<number> {
