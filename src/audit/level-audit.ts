@@ -2,6 +2,7 @@ import { isTypeRole, type Group } from '../keymap/groups.js';
 import { inPollenSum, roleOf } from '../keymap/keymap.js';
 import type { SessionEvent } from '../model/events.js';
 import type { LevelState } from '../model/level-state.js';
+import { slideOfTraverse } from '../model/slides.js';
 import { correctionsOf, type Correction } from './corrections.js';
 import { evennessAcrossTraverses, type Evenness } from './evenness.js';
 import { indexGrains, type GrainIndex } from './grain-index.js';
@@ -20,6 +21,8 @@ export const DEFAULT_GAP_MS = 5 * 60_000;
 
 export interface TraverseRow {
   readonly traverse: number;
+  /** The slide it was counted on. */
+  readonly slide: string | null;
   /** Time of its first event; null for a traverse with no event yet. */
   readonly start: string | null;
   /** Start of the sitting it began in (its start shows a date when that is another day). */
@@ -162,6 +165,7 @@ function traverseRows(walk: SittingWalk, countsBy: ReadonlyMap<number, ReadonlyM
       const recorded = list.filter((e) => e.type === 'grain').length;
       return {
         traverse: t,
+        slide: slideOfTraverse(state.slides, t),
         start: log?.firstAt ?? null,
         sittingStart: log?.sittingStart ?? null,
         empty: recorded === 0,

@@ -10,11 +10,12 @@ export async function benchKill(rounds: number): Promise<string[]> {
     const started = Date.now();
     const f = await killRounds(dir, rounds, {
       seed: Number(process.env.EXINE_KILL_SEED ?? 1),
+      lanes: Number(process.env.EXINE_KILL_LANES ?? 1),
       onRound: (p) => p.rounds % 100 === 0 && process.stderr.write(`kill: ${p.rounds} rounds, ${p.shown} shown, ${p.lost} lost\n`),
     });
     const s = ((Date.now() - started) / 1000).toFixed(0);
     return [
-      `(h) random kill -9 of exine count in an 80x24 pty, ${f.rounds} rounds on ${f.files} files, bursts of 1–300 keys (${s} s; EXINE_KILL_ROUNDS sets the rounds)`,
+      `(h) random kill -9 of exine count in an 80x24 pty, ${f.rounds} rounds on ${f.files} files, bursts of 1–300 keys (${s} s; EXINE_KILL_ROUNDS sets the rounds, EXINE_KILL_LANES how many run at once)`,
       `    keys sent ${f.keysSent} · grains shown ${f.shown} · grains on disk ${f.onDisk}`,
       `    shown but not on disk:        ${f.lost}   (goal: 0)`,
       `    files unreadable after a kill: ${f.unreadable}   (goal: 0)`,

@@ -91,10 +91,11 @@ async function killRound(dir: string, file: string, fresh: boolean, random: Rand
       const n = between(random, 1, 300);
       proc.stdin.write(Array.from({ length: n }, () => KEYS[between(random, 0, KEYS.length - 1)]).join(''));
       keys += n;
-      await sleep(between(random, 0, 40));
+      await sleep(between(random, 0, 250));
     }
   })();
-  await sleep(between(random, 0, 250));
+  // Any moment: before the first key is handled, mid-burst, mid-write, or after the keys are all drawn.
+  await sleep(between(random, 0, 1500));
   killed = true;
   process.kill(pid, 'SIGKILL');
   await typing;
@@ -119,50 +120,58 @@ export function seeded(seed: number): Random {
 /**
  * `rounds` kill rounds, `perFile` on each level file (each round after the first
  * resumes what the last kill left), then every file is resumed once more in-process.
+ * `lanes` run side by side, each on files of its own, so a busy machine's waits overlap.
  */
-export async function killRounds(dir: string, rounds: number, { perFile = 10, seed = 1, onRound }: { perFile?: number; seed?: number; onRound?: (f: KillFigures) => void } = {}): Promise<KillFigures> {
-  const random = seeded(seed);
+export async function killRounds(
+  dir: string,
+  rounds: number,
+  { perFile = 10, seed = 1, lanes = 1, onRound }: { perFile?: number; seed?: number; lanes?: number; onRound?: (f: KillFigures) => void } = {},
+): Promise<KillFigures> {
   const f: KillFigures = { rounds: 0, keysSent: 0, shown: 0, onDisk: 0, lost: 0, tornTails: 0, unreadable: 0, notResumed: 0, files: 0 };
-  let file = '';
-  let before = 0;
-  const finishFile = () => {
-    if (!file) return;
-    try {
-      const opened = resumeLevel(join(dir, file));
-      opened.writer.close();
-      if (opened.state.grains !== before) f.notResumed++;
-    } catch {
-      f.notResumed++;
+  const lane = async (n: number, laneRounds: number) => {
+    const random = seeded(seed + 1000 * n);
+    let file = '';
+    let before = 0;
+    const finishFile = () => {
+      if (!file) return;
+      try {
+        const opened = resumeLevel(join(dir, file));
+        opened.writer.close();
+        if (opened.state.grains !== before) f.notResumed++;
+      } catch {
+        f.notResumed++;
+      }
+    };
+    for (let r = 0; r < laneRounds; r++) {
+      const fresh = !file || r % perFile === 0;
+      if (fresh) {
+        finishFile();
+        file = `kill-${n}-${f.files++}.jsonl`;
+        before = 0;
+      }
+      const round = await killRound(dir, file, fresh, random);
+      f.rounds++;
+      if (!round) {
+        f.notResumed++;
+        file = '';
+        continue;
+      }
+      const disk = onDiskGrains(join(dir, file));
+      if (disk.corrupt) {
+        f.unreadable++;
+        file = '';
+        continue;
+      }
+      if (disk.torn) f.tornTails++;
+      f.keysSent += round.keys;
+      f.shown += round.shown - round.start;
+      f.onDisk += disk.grains - before;
+      f.lost += Math.max(0, round.shown - disk.grains);
+      before = disk.grains;
+      onRound?.(f);
     }
+    finishFile();
   };
-  for (let r = 0; r < rounds; r++) {
-    const fresh = !file || r % perFile === 0;
-    if (fresh) {
-      finishFile();
-      file = `kill-${f.files++}.jsonl`;
-      before = 0;
-    }
-    const round = await killRound(dir, file, fresh, random);
-    f.rounds++;
-    if (!round) {
-      f.notResumed++;
-      file = '';
-      continue;
-    }
-    const disk = onDiskGrains(join(dir, file));
-    if (disk.corrupt) {
-      f.unreadable++;
-      file = '';
-      continue;
-    }
-    if (disk.torn) f.tornTails++;
-    f.keysSent += round.keys;
-    f.shown += round.shown - round.start;
-    f.onDisk += disk.grains - before;
-    f.lost += Math.max(0, round.shown - disk.grains);
-    before = disk.grains;
-    onRound?.(f);
-  }
-  finishFile();
+  await Promise.all(Array.from({ length: lanes }, (_, n) => lane(n, Math.floor(rounds / lanes) + (n < rounds % lanes ? 1 : 0))));
   return f;
 }

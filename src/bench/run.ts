@@ -1,7 +1,10 @@
 // npm run bench: speed measured as ratios against baselines taken in the same run, on the same disk.
 // `npm run bench -- --only tally,resume` runs the named sections alone; --suite adds the test-suite timing.
 import { cpus } from 'node:os';
+import { benchCoreView } from './core-view.js';
 import { benchCraftedInput } from './crafted-input.js';
+import { benchFaults } from './fault-bench.js';
+import { benchDamage } from './fault-damage.js';
 import { benchFirstFrame } from './first-frame.js';
 import { benchKill } from './kill-bench.js';
 import { benchLockRace } from './lock-race-bench.js';
@@ -11,6 +14,7 @@ import { benchResume } from './resume.js';
 import { benchTallyPath } from './tally-path.js';
 import { benchTestSuite } from './test-suite.js';
 import { benchAuditScale, benchStartUp } from './start-up.js';
+import { benchKeyFrame } from './key-frame.js';
 
 type Section = { name: string; run: () => string[] | Promise<string[]>; optIn?: boolean };
 
@@ -23,9 +27,13 @@ const SECTIONS: Section[] = [
   { name: 'stopping', run: () => benchOptionalStopping(Number(process.env.EXINE_SIM_RUNS ?? 2000)) },
   { name: 'crafted', run: benchCraftedInput },
   { name: 'lock-race', run: () => benchLockRace(Number(process.env.EXINE_LOCK_ROUNDS ?? 1000)) },
+  { name: 'faults', run: () => benchFaults(Number(process.env.EXINE_FAULT_CASES ?? 2000)), optIn: true },
+  { name: 'damage', run: () => benchDamage() },
   { name: 'kill', run: () => benchKill(Number(process.env.EXINE_KILL_ROUNDS ?? 1000)), optIn: true },
   { name: 'start-up', run: benchStartUp },
   { name: 'audit-scale', run: benchAuditScale },
+  { name: 'key-frame', run: () => benchKeyFrame() },
+  { name: 'core-view', run: () => benchCoreView() },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];
 

@@ -10,8 +10,10 @@ Commands
   summary FILE   statistics and stop-rule state of a level
   export FILE…   levels as CSV (long, wide, or their notes)
   verify FILE    check a session file's integrity chain
-  keys PATH      check a keymap and show its layout
+  keys PATH      check or make a keymap (new, edit, from-list); print its card
   prefs          show or set preferences (bell, rare, break, keymap, analyst)
+  core init DIR  make a core folder (core.json: keymap, rules, markers, depths)
+  core DIR       the levels of a core at a glance
 
 Run "exine <command> --help" for the options of one command.`;
 
@@ -27,10 +29,13 @@ Options
   --keymap PATH|NAME  keymap for a new level (default: the keymap preference,
                       else temperate-lowland; bundled: temperate-lowland, keypad)
   --level L           level label (default: the file name)
-  --depth D           depth of the level in the core (a number, e.g. cm)
+  --depth D           depth of the level in the core (a number, e.g. cm);
+                      with a core folder for FILE, the level to count
+                      (exine count DIR --depth D: see exine core --help)
   --site S            site name
   --core C            core label
-  --slide S           slide label
+  --slide S           slide label; on resume another slide is recorded
+                      and counting goes on on it (traverse numbers go on)
   --analyst A         who counts (default: the analyst preference)
   --quiet             no terminal bells (preference: bell)
   --rare N            list types with at most N grains as rare (preference: rare)
@@ -120,14 +125,24 @@ Options
   -h, --help   this help`,
   export: `Usage
   exine export FILE… [--format long|wide|notes] [--out PATH] [--force]
+  exine export DIR [--values counts|percent] [--format wide|long|notes|taxa] …
 
 Writes levels as CSV (RFC 4180, UTF-8, header row). long: one row per level
 and taxon, with percentages, intervals and marker concentration. wide: one row
 per level, one count column per taxon, levels in depth order. notes: one row
 per note, with the grain's taxon, traverse and stage position.
 
+A core folder DIR exports as the core's matrix (wide, the default there): each
+level's status, slides, markers, summary groups and taxa, synonyms merged; the
+taxa and their groups go to NAME.taxa.csv beside --out NAME.csv (--format taxa
+prints them). It refuses a level of another core, a level not finished or not
+meeting its rules, and the same session twice, naming the files.
+
 Options
-  --format F  long (default), wide or notes
+  --format F  long (default for files), wide, notes, or taxa (a core)
+  --values V  counts (default) or percent of the pollen sum (a core's matrix)
+  --include-unfinished  a core: export levels not finished or not met too
+  --mixed-cores         export levels of other cores too
   --out PATH  write to PATH (atomically) instead of standard output
   --force     replace PATH if it exists
   -h, --help  this help
@@ -161,12 +176,57 @@ Flags of exine count override preferences; preferences override the defaults.
 Examples
   exine prefs set analyst "R. Fern"
   exine prefs set break off`,
+  core: `Usage
+  exine core init DIR --site S --core C [options]
+  exine core DIR [--plain | --json]
+
+init makes DIR (or uses an empty one) a core folder: DIR/core.json holds the
+site and core names, a copy of the keymap, the default stop rules, the marker
+batch and the planned depths. Levels counted with exine count DIR --depth D
+inherit them. core.json may be edited by hand; every command checks it again.
+
+Options of init
+  --site S, --core C  names recorded in every level (required)
+  --keymap PATH|NAME  keymap copied into core.json (default: the keymap preference)
+  --depths A:B:STEP | D1,D2,…  planned depths, e.g. 4:200:8
+  --target, --precision, --coverage, --plateau, --markers, --conc-error,
+  --rule-mode, --min-sum   default stop rules, as for exine count
+  --tablets T --per-tablet S [--per-tablet-sd SD]   the marker batch
+                      (volume or mass is per level: give it to exine count)
+  -h, --help          this help
+
+exine core DIR shows every level, planned ones too: status, pollen sum and
+grains still needed, squared-chord distance to the level above, time,
+integrity, and strips of the commonest taxa. ? marks a level unlike both its
+neighbours, ◂ the planned depth to count next. ↑↓ select, Enter counts the
+level (Ctrl-C there comes back), q quits. The view follows files that change.
+  --plain             the same as text        --json   everything, for a script
+  --quiet             no bells in the counting screen`,
   keys: `Usage
   exine keys PATH|NAME
+  exine keys PATH|NAME --card card.svg|card.txt [--paper a4|letter] [--force]
+  exine keys new FILE [--name NAME] [--force]
+  exine keys edit FILE
+  exine keys from-list LIST --out FILE [--name NAME] [--force]
   exine keys PATH --add-types SESSION
 
 Checks a keymap file and draws its layout. NAME is a bundled keymap
 (temperate-lowland, keypad).
+
+--card writes a key card to print and keep beside the microscope: an SVG
+drawing (A4 or Letter, landscape) or plain text.
+
+new makes a keymap at the keyboard: press a key, type the taxon, Enter, type
+its group (a few letters; Enter alone repeats the last; a new name makes a
+group of your own and asks its role). Enter on an empty taxon saves and ends.
+edit changes a keymap file in place, keeping its layout (a used key: type a new
+taxon, or "-" to free it).
+
+from-list makes a keymap from a taxon list, one "taxon, group" a line (a third
+field gives a new group's role: sum, outside, marker, indeterminable), or a CSV
+with columns taxon and group (and role). Keys: the taxon's initial when free,
+else its second letter, else the next free key after the initial (then digits,
+signs, capitals); the report says which taxon got which key and why.
 
 With --add-types, the types added while counting SESSION (the = key) are
 written into your keymap file on the keys they had, so the next level starts
@@ -174,7 +234,9 @@ with them. The file keeps its layout; a bundled keymap is never changed (copy
 it first).
 
 Examples
-  exine keys keypad
+  exine keys keypad --card keypad-card.svg
+  exine keys new mire.json
+  exine keys from-list taxa.csv --out mire.json
   cp keymaps/temperate-lowland.json km1-keys.json
   exine keys km1-keys.json --add-types km1-084cm.jsonl`,
 };

@@ -2,7 +2,7 @@ import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { ExineError } from '../errors.js';
 
 /**
- * Largest session file read. A level of 100,000 grains is about 15 MB; a file
+ * Largest session file read. A level of 100,000 grains is about 25 MB; a file
  * past this is not one exine wrote, and holding it whole would only exhaust memory.
  */
 export const MAX_SESSION_BYTES = 1024 * 1024 * 1024;
@@ -21,7 +21,7 @@ export function readSessionBytes(path: string, shown = path, maxBytes = MAX_SESS
     const size = stat.size;
     if (stat.isDirectory()) throw Object.assign(new Error('folder'), { code: 'EISDIR' });
     if (size > maxBytes) {
-      throw new ExineError(`${shown} is ${mib(size)}, more than the ${mib(maxBytes)} exine reads as a session file (a level of 100,000 grains is about 15 MB); nothing was read`);
+      throw new ExineError(`${shown} is ${mib(size)}, more than the ${mib(maxBytes)} exine reads as a session file (a level of 100,000 grains is about 25 MB); nothing was read`);
     }
     const buf = Buffer.allocUnsafe(size);
     let done = 0;

@@ -49,7 +49,7 @@ export function drawLayout(keymap: Keymap): string {
   const letters = groupLetters(keymap.groups.map((g) => g.name));
   const used = new Set(Object.values(keymap.keys).map((b) => b.group));
   const list = bindingsOf(keymap).map(
-    ([key, b]) => `  ${fit(keyLabel(key), 6)} ${fit(visible(b.taxon), 26)} ${fit(visible(b.group), 15)}${bindingInSum(keymap, b) ? 'in sum' : ''}`,
+    ([key, b]) => `  ${fit(keyLabel(key), 6)} ${fit(visible(b.taxon), 26)} ${fit(visible(b.group), 15)}${bindingInSum(keymap, b) ? 'in sum' : b.inSum === false ? 'taken out of the sum' : ''}`,
   );
   const groupsLine = keymap.groups
     .filter((g) => used.has(g.name) || g.role === 'sum')

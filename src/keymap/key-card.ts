@@ -69,7 +69,9 @@ function badge(s: Style, cx: number, cy: number, r: number): string {
 export function wrapName(name: string, fit: number, lines: number): string[] {
   const out: string[] = [];
   let current = '';
-  for (const word of name.split(/\s+/).filter(Boolean)) {
+  // A word too long for the key may break after a hyphen ("Potentilla-" "type").
+  const words = name.split(/\s+/).filter(Boolean).flatMap((w) => ([...w].length > fit && w.includes('-') ? w.split(/(?<=-)/) : [w]));
+  for (const word of words) {
     const w = [...word].length > fit ? `${[...word].slice(0, fit - 1).join('')}…` : word;
     if (!current) current = w;
     else if ([...`${current} ${w}`].length <= fit) current = `${current} ${w}`;
@@ -106,10 +108,12 @@ function keyCap(keymap: Keymap, st: Map<string, Style>, k: GridKey, ox: number, 
     const inner = s.role === 'marker' ? `<rect x="${n(x + 0.9)}" y="${n(y + 0.9)}" width="${n(w - 1.8)}" height="${n(h - 1.8)}" rx="1.2" fill="none" stroke="${s.colour}" stroke-width="0.3"/>` : '';
     const r = u * 0.085;
     // A long single word ("Amaranthaceae") gets smaller letters before it is cut.
-    const longest = Math.max(...b.taxon.split(/\s+/).map((x) => [...x].length));
+    const longest = Math.max(...b.taxon.split(/\s+|(?<=-)/).map((x) => [...x].length));
     const size = Math.max(u * 0.095, Math.min(u * 0.13, (w - 2 * pad) / (CHAR_EM * longest)));
     const fit = Math.max(4, Math.floor((w - 2 * pad) / (CHAR_EM * size)));
-    const room = Math.max(1, Math.floor((h - pad * 2 - labelSize * 1.05) / (size * 1.15)));
+    // A taxon taken out of a group in the sum says so at the foot of its key.
+    const out = b.inSum === false;
+    const room = Math.max(1, Math.floor((h - pad * 2 - labelSize * 1.05 - (out ? size * 1.3 : 0)) / (size * 1.15)));
     const lines = wrapName(b.taxon, fit, Math.min(room, 3));
     const firstLine = y + pad + labelSize * 1.05 + size;
     return [
@@ -119,6 +123,7 @@ function keyCap(keymap: Keymap, st: Map<string, Style>, k: GridKey, ox: number, 
       labelText,
       badge(s, x + w - pad - r * 1.1, y + pad + r * 1.1, r),
       ...lines.map((l, i) => text(x + pad, firstLine + i * size * 1.15, size, l, ' class="taxon"')),
+      out ? text(x + pad, y + h - pad - size * 0.3, size * 0.9, 'not in sum', ' font-style="italic"') : '',
       '</g>',
     ].join('');
   }
@@ -170,7 +175,7 @@ export function keyCardSvg(keymap: Keymap, paper: Paper = 'a4'): string {
     ly += legendLine;
   }
   if (grid.offGrid.length) {
-    const also = grid.offGrid.map((k) => `${keyLabel(k)} ${keymap.keys[k]?.taxon ?? ''}`).join(' · ');
+    const also = grid.offGrid.map((k) => `${keyLabel(k)} ${keymap.keys[k]?.taxon ?? ''} (${st.get(keymap.keys[k]?.group ?? '')?.letter ?? '?'})`).join(' · ');
     for (const l of wrapName(`also: ${also}`, maxChars, 4)) {
       legend.push(text(lx, ly, size, l));
       ly += legendLine;

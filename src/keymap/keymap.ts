@@ -55,9 +55,12 @@ const SHOWN: Readonly<Record<string, string>> = {
   '\u00a0': 'NBSP',
 };
 
+/** A key as a person reads it: named keys and spaces by name (another blank character by its code point). */
 export function keyLabel(key: KeyName | null): string {
   if (key === null) return '(no key)';
-  return SHOWN[key] ?? key;
+  const shown = SHOWN[key];
+  if (shown) return shown;
+  return /^\p{Zs}$/u.test(key) ? `U+${(key.codePointAt(0) ?? 0).toString(16).toUpperCase().padStart(4, '0')}` : key;
 }
 
 /** The taxon keys with their bindings, in the file's order. */

@@ -37,7 +37,8 @@ function fromCopy(list: readonly unknown[]): GroupsResult {
  */
 export function resolveGroups(given: unknown, sum: readonly string[] | undefined, strict: boolean): GroupsResult {
   const fail = (message: string): GroupsResult => ({ ok: false, message });
-  if (Array.isArray(given)) return fromCopy(given);
+  // Only a copy in a session file writes the list; a person writes name → role.
+  if (Array.isArray(given)) return strict ? fail('"groups" must be an object of group name → role (sum, outside, marker, indeterminable), e.g. { "NPP": "outside" }') : fromCopy(given);
   const roles: Record<BuiltInGroup, GroupRole> = { ...BUILT_IN_ROLE };
   const own: GroupDef[] = [];
   const stated = new Map<string, GroupRole>();

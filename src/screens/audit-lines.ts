@@ -2,6 +2,7 @@ import { describeCell } from '../audit/evenness.js';
 import type { AuditRead } from '../audit/audit-source.js';
 import { describeCorrection, timelineBar, type LevelAudit, type TraverseRow } from '../audit/level-audit.js';
 import type { SessionEvent } from '../model/events.js';
+import { slideNames } from '../model/slides.js';
 import { fit, plural, right } from '../text/cells.js';
 import { formatDuration } from '../text/durations.js';
 import { perMinute } from '../text/numbers.js';
@@ -19,20 +20,22 @@ export function traverseStart(t: TraverseRow): string {
 }
 
 /** The traverse table's heading: in full from 120 columns, in short words below. */
-export function traverseHeading(width: number): string {
+export function traverseHeading(width: number, withSlide = false): string {
+  const slide = withSlide ? ' slide' : '';
   return width >= 120
-    ? `   #  ${fit('start', 11)}  ${right('time', 5)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new types', 9)}  ${right('undos', 5)}  ${right('voids', 5)}  ${right('notes', 5)}`
-    : `   # ${fit('start', 11)}  time grain type  /min new und voi not`;
+    ? `   #  ${fit('start', 11)}  ${right('time', 5)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new types', 9)}  ${right('undos', 5)}  ${right('voids', 5)}  ${right('notes', 5)}${slide}`
+    : `   # ${fit('start', 11)}  time grain type  /min new und voi not${slide}`;
 }
 
 /** A traverse's row of the table: start, time, grains, types, rate, new types, undos, voids, notes; "empty" when it holds no grain. */
-export function traverseLine(t: TraverseRow, width = 80): string {
+export function traverseLine(t: TraverseRow, width = 80, withSlide = false): string {
+  const slide = withSlide ? ` ${fit(t.slide ?? '–', 5)}` : '';
   const mark = t.voidedWhole ? ' VOID' : t.empty ? (t.takenBack ? ` empty (taken back by #${t.takenBack})` : ' empty') : '';
   const time = right(formatDuration(t.activeMs).slice(3), 5);
   if (width >= 120) {
-    return `${right(String(t.traverse), 3)}  ${fit(traverseStart(t), 11)}  ${time}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 9)}  ${right(String(t.undos), 5)}  ${right(String(t.voided), 5)}  ${right(String(t.notes), 5)}${mark}`;
+    return `${right(String(t.traverse), 3)}  ${fit(traverseStart(t), 11)}  ${time}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 9)}  ${right(String(t.undos), 5)}  ${right(String(t.voided), 5)}  ${right(String(t.notes), 5)}${slide}${mark}`;
   }
-  return `${right(String(t.traverse), 3)} ${fit(traverseStart(t), 11)} ${time} ${right(String(t.grains), 5)} ${right(String(t.types), 4)} ${right(perMinute(t.perMinute), 5)} ${right(String(t.newTypes.length), 3)} ${right(String(t.undos), 3)} ${right(String(t.voided), 3)} ${right(String(t.notes), 3)}${mark}`;
+  return `${right(String(t.traverse), 3)} ${fit(traverseStart(t), 11)} ${time} ${right(String(t.grains), 5)} ${right(String(t.types), 4)} ${right(perMinute(t.perMinute), 5)} ${right(String(t.newTypes.length), 3)} ${right(String(t.undos), 3)} ${right(String(t.voided), 3)} ${right(String(t.notes), 3)}${slide}${mark}`;
 }
 
 /** What became of each grain, for the event list of a traverse: "undone", "VOIDED by #12", "double press?", or "". */
@@ -80,7 +83,7 @@ export function auditHeading(read: AuditRead): Line[] {
   const where = [h.site, h.core].filter(Boolean).join(' ');
   const integrity = verdict.intact ? 'file intact' : writing ? 'last line incomplete (being written?)' : 'FILE DAMAGED';
   return [
-    truncated(`Audit · ${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · slide ${h.slide ?? '–'}`, { bold: true, tone: 'accent' }),
+    truncated(`Audit · ${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · ${read.state.slides.length > 1 ? 'slides' : 'slide'} ${slideNames(read.state).join(', ')}`, { bold: true, tone: 'accent' }),
     truncated(
       `${integrity} · ${plural(audit.grains, 'grain')} · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · ${formatDuration(audit.countingMs)} counting · ${perMinute(audit.perMinute)}/min`,
       { tone: verdict.intact || writing ? undefined : 'error' },

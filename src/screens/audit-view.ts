@@ -44,14 +44,14 @@ export function auditRooms(height: number, traverses: number): { tableRoom: numb
 }
 
 /** The traverse table: its title and the rows that fit; "▶" marks the selection while the keys move it, "›" otherwise. */
-function traverseTable(traverses: readonly TraverseRow[], ui: AuditUi, room: number, width: number): Line[] {
+function traverseTable(traverses: readonly TraverseRow[], ui: AuditUi, room: number, width: number, withSlide: boolean): Line[] {
   const { shown, offset } = scrollWindow(traverses, ui.selected, room);
   return [
-    line(fit(traverseHeading(width), width), { bold: true }),
+    line(fit(traverseHeading(width, withSlide), width), { bold: true }),
     ...shown.map((t, i) => {
       const here = offset + i === ui.selected;
       const mark = here ? (ui.focus === 'traverses' ? '▶' : '›') : ' ';
-      return truncated(`${mark}${traverseLine(t, width)}`, { inverse: here && ui.focus === 'traverses', bold: here, tone: t.voidedWhole ? 'zero' : undefined });
+      return truncated(`${mark}${traverseLine(t, width, withSlide)}`, { inverse: here && ui.focus === 'traverses', bold: here, tone: t.voidedWhole ? 'zero' : undefined });
     }),
   ];
 }
@@ -108,7 +108,7 @@ export function auditScreenView(read: AuditRead, ui: AuditUi, size: { columns: n
   return {
     width,
     height,
-    top: [...auditHeading(read), ...(ui.overview ? [] : traverseTable(traverses, ui, tableRoom, width))],
+    top: [...auditHeading(read), ...(ui.overview ? [] : traverseTable(traverses, ui, tableRoom, width, read.state.slides.length > 1))],
     body: { ...body, height: body.height - extra, lines: body.lines.slice(0, body.height - extra) },
     prompt,
     promptHeight,

@@ -13,7 +13,7 @@ export function headingLines(state: LevelState, sittingMs: number, breakMinutes:
   const where = [h.site, h.core].filter(Boolean).join(' ');
   const depth = h.depth === null ? '' : ` · depth ${h.depth}`;
   return [
-    truncated(`${where ? `${where} · ` : ''}level ${h.level}${depth} · slide ${h.slide ?? '–'}`, { bold: true, tone: 'accent' }),
+    truncated(`${where ? `${where} · ` : ''}level ${h.level}${depth} · slide ${state.slide ?? '–'}`, { bold: true, tone: 'accent' }),
     state.finishedAt
       ? truncated(`FINISHED ${localDateTime(state.finishedAt)} · read-only · ${state.traverse === 1 ? '1 traverse' : `${state.traverse} traverses`} · ${state.sitting === 1 ? '1 sitting' : `${state.sitting} sittings`}`, { bold: true, tone: 'warning' })
       : {

@@ -3,6 +3,7 @@ import { CountingSession } from '../session/counting-session.js';
 import { readLevel, type OpenedLevel } from '../session/session-files.js';
 import type { LevelState } from '../model/level-state.js';
 import { levelTable } from '../stats/level-table.js';
+import { visible } from '../text/visible.js';
 import { CountScreen } from './count-screen.js';
 
 /** What the terminal keeps after the screen: saved, or finished with the hash to write down, or only looked at. */
@@ -39,7 +40,7 @@ export async function runCountScreen(opened: OpenedLevel, options: { bell?: bool
   });
   const onCrash = (error: unknown) => {
     stop(1);
-    process.stderr.write(`exine: unexpected error, the session was closed: ${(error as Error)?.message ?? error}\n`);
+    process.stderr.write(`exine: unexpected error, the session was closed: ${visible(String((error as Error)?.message ?? error))}\n`);
     process.exit(1);
   };
   process.once('uncaughtException', onCrash);
@@ -50,7 +51,8 @@ export async function runCountScreen(opened: OpenedLevel, options: { bell?: bool
     for (const [signal, handler] of handlers) process.off(signal, handler);
     process.off('uncaughtException', onCrash);
   }
-  for (const notice of opened.notices) process.stdout.write(`on opening: ${notice}\n`);
-  process.stdout.write(`${quitLine(session.path, session.getSnapshot().state, opened.writer.viewOnly === true)}\n`);
+  // Printed after the screen, outside Ink: escaped here (a lock's host, a file name).
+  for (const notice of opened.notices) process.stdout.write(`on opening: ${visible(notice)}\n`);
+  for (const l of quitLine(session.path, session.getSnapshot().state, opened.writer.viewOnly === true).split('\n')) process.stdout.write(`${visible(l)}\n`);
   return exitCode;
 }

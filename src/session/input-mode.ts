@@ -28,7 +28,9 @@ export function parseNewType(text: string, groups: readonly Group[]): { ok: true
   if (!name) return { ok: false, message: 'type the name of the new type, a comma, and its group' };
   if (extra.length) return { ok: false, message: 'one comma only: "name, group"' };
   if (!groupText) return { ok: false, message: `add its group after a comma: ${groups.join(', ')}` };
-  const matches = groups.filter((g) => g.startsWith(groupText.toLowerCase()));
+  // Groups of a keymap's own may have capitals (NPP): compared without case, an exact name first.
+  const exact = groups.filter((g) => g.toLowerCase() === groupText.toLowerCase());
+  const matches = exact.length ? exact : groups.filter((g) => g.toLowerCase().startsWith(groupText.toLowerCase()));
   if (matches.length !== 1) return { ok: false, message: `"${groupText}" is not one group of: ${groups.join(', ')}` };
   return { ok: true, taxon: name, group: matches[0] as Group };
 }

@@ -99,7 +99,7 @@ describe('groups of the keymap\'s own, with roles', () => {
     expect(long.find((r) => r[5] === 'Eucalyptus (exotic)')?.[LONG_COLUMNS.indexOf('concentration')]).toBeNull();
     expect(long.find((r) => r[5] === 'Calluna')?.[LONG_COLUMNS.indexOf('concentration')]).toBe(2500);
     const wide = wideTable([{ state, source: 'x.jsonl' }]);
-    expect(wide.columns.slice(11)).toEqual(['Betula', 'Cyperaceae', 'Poaceae', 'Calluna', 'HdV-18', 'Pre-Quaternary spores', 'Eucalyptus (exotic)', 'Broken grain']);
+    expect(wide.columns.slice(wide.columns.indexOf('influx') + 1)).toEqual(['Betula', 'Cyperaceae', 'Poaceae', 'Calluna', 'HdV-18', 'Pre-Quaternary spores', 'Eucalyptus (exotic)', 'Broken grain']);
   });
 
   it('a level keeps its copy: groups, roles and key order read back from line 1', () => {
@@ -182,5 +182,46 @@ describe('strict checks', () => {
   it('a space key is drawn and listed as "Space"', () => {
     const k = ok('{"name":"x","keys":{" ":{"taxon":"Pinus","group":"trees"},"q":{"taxon":"Quercus","group":"trees"}}}');
     expect(keyLabel(k.order[0] ?? null)).toBe('Space');
+    expect([keyLabel('\u2002'), keyLabel('\u00a0'), keyLabel('q')]).toEqual(['U+2002', 'NBSP', 'q']);
+  });
+});
+
+describe('groups written as a list', () => {
+  it('a person writes "groups" as name → role; the list form is only a session copy\'s', () => {
+    expect(err('{"name":"x","groups":[{"name":"NPP","role":"outside"}],"keys":{"q":{"taxon":"Quercus","group":"trees"}}}')).toMatch(/"groups" must be an object of group name → role/);
+  });
+});
+
+describe('a type added while counting, into a group of the keymap\'s own', () => {
+  it('is planned, recorded, folded and tabled with its group\'s role', async () => {
+    const { planBurst } = await import('../../src/session/plan-burst.js');
+    const { foldEvents, applyEvents } = await import('../../src/model/fold.js');
+    const { splitRaw } = await import('../../src/input/key-press.js');
+    const k = ok(UPLAND);
+    const open = { ...openPayload(k), seq: 1, at: '2026-11-02T09:00:00.000Z' } as unknown as import('../../src/model/events.js').OpenEvent;
+    const start = foldEvents(open, k, []);
+    const p = planBurst(start, null, splitRaw('=Pediastrum, NP\r99'));
+    expect(p.payloads.slice(0, 2)).toEqual([
+      { type: 'taxon', taxon: 'Pediastrum', group: 'NPP', key: 'A' },
+      { type: 'grain', taxon: 'Pediastrum', traverse: 1, key: 'A' },
+    ]);
+    const events = p.payloads.map((e, i) => ({ ...e, seq: i + 2, at: '2026-11-02T09:00:01.000Z' })) as unknown as import('../../src/model/events.js').SessionEvent[];
+    const state = applyEvents(start, events);
+    expect(state.keymap.order.at(-1)).toBe('A');
+    const t = levelTable(state);
+    expect(t.pollenSum).toBe(2);
+    expect(t.rows.find((r) => r.taxon === 'Pediastrum')).toMatchObject({ group: 'NPP', inSum: false, count: 1, basis: 3 });
+  });
+});
+
+describe('a session file with a type of a group of the keymap\'s own', () => {
+  it('reads back: the taxon line, its group and role', () => {
+    const k = ok(UPLAND);
+    const dir = tempDir();
+    const path = join(dir, 'l.jsonl');
+    writeFileSync(path, sessionText([openPayload(k), { type: 'taxon', taxon: 'Pediastrum', group: 'NPP', key: 'A' }, grain('Pediastrum'), grain('Betula')]));
+    const { state } = readLevel(path);
+    expect(state.keymap.keys.A).toEqual({ taxon: 'Pediastrum', group: 'NPP' });
+    expect(levelTable(state).rows.find((r) => r.taxon === 'Pediastrum')).toMatchObject({ inSum: false, basis: 2 });
   });
 });

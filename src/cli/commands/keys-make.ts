@@ -1,6 +1,7 @@
-import { existsSync, readFileSync } from 'node:fs';
-import { basename, extname, resolve } from 'node:path';
+import { accessSync, constants, existsSync, readFileSync } from 'node:fs';
+import { basename, dirname, extname, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
+import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { emptyKeymapText } from '../../keymap/edit-keymap-text.js';
 import { keymapFromList } from '../../keymap/keymap-from-list.js';
@@ -29,6 +30,7 @@ export function keysFromList(args: string[], io: Io): number {
   const list = parseTaxonList(text, positionals[0] as string);
   if (!list.ok) throw new ExineError(list.message);
   const out = resolve(io.cwd, values.out);
+  refuseOwnInput('keys from-list', values.out, [positionals[0] as string], io.cwd);
   if (!values.force && existsSync(out)) throw new ExineError(`${values.out} already exists; add --force to replace it`);
   const made = keymapFromList(list.entries, values.name ?? nameFrom(values.out), values.out);
   if (!made.ok) throw new ExineError(made.message);
@@ -55,6 +57,12 @@ export async function keysBuild(mode: 'new' | 'edit', args: string[], io: Io): P
       throw new ExineError(`keymap ${file}: cannot be read (${(error as NodeJS.ErrnoException).code ?? String(error)})`);
     }
   }
+  // Found out now, not after forty taxa have been typed.
+  try {
+    accessSync(dirname(path), constants.W_OK);
+  } catch (error) {
+    throw new ExineError(`cannot write ${file}: its folder ${(error as NodeJS.ErrnoException).code === 'ENOENT' ? 'does not exist' : 'is not writable'}`);
+  }
   const { startBuilder } = await import('../../screens/keymap-builder-keys.js');
   const start = startBuilder(text, values.name ?? nameFrom(file), file);
   if ('error' in start) throw new ExineError(start.error);
@@ -63,11 +71,18 @@ export async function keysBuild(mode: 'new' | 'edit', args: string[], io: Io): P
   const { runKeymapBuilder } = await import('../../screens/run-keymap-builder.js');
   const end = await runKeymapBuilder(start, file);
   if (!end.changed || end.keymap.order.length === 0) {
-    io.stdout.write(`${file}: ${mode === 'new' ? 'no keys were made; nothing written' : 'unchanged'}\n`);
+    const why = end.keymap.order.length === 0 ? (mode === 'new' ? 'no keys were made' : 'every key was freed, and a keymap needs one') : 'unchanged';
+    io.stdout.write(`${file}: ${why}; nothing written\n`);
     return 0;
   }
   // A new file never replaces one that appeared meanwhile (unless --force); an edit replaces its own file.
-  writeFileAtomic(path, end.text, mode === 'edit' || values.force === true);
+  try {
+    writeFileAtomic(path, end.text, mode === 'edit' || values.force === true);
+  } catch (error) {
+    // What was typed is not lost: the keymap goes to the terminal, to be saved by hand.
+    io.stdout.write(end.text);
+    throw new ExineError(`${(error as Error).message}; the keymap is printed above: save it under another name`);
+  }
   io.stdout.write(`${file}: ${taxa(end.keymap.order.length)} written (${visible(end.keymap.name)}); print a card with exine keys ${file} --card card.svg\n`);
   return 0;
 }
