@@ -1,6 +1,6 @@
 import { inPollenSum, withKey, type Keymap } from '../keymap/keymap.js';
 import { normalRules } from '../rules/rule-set.js';
-import { closedAfter } from './event-kinds.js';
+import { closedAfter, correctingAfter } from './event-kinds.js';
 import type { OpenEvent, SessionEvent } from './events.js';
 import { RECENT_EVENTS, type CountedGrain, type GrainStack, type LevelState } from './level-state.js';
 
@@ -35,7 +35,44 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     slide: open.slide,
     slides: [{ slide: open.slide, seq: open.seq, at: open.at, traverse: 1 }],
     ignored: [],
+    countingMs: 0,
+    countingClock: { at: open.at, inSitting: false, correcting: false },
   };
+}
+
+/** A gap longer than this inside a sitting is a pause, not counting: the audit's DEFAULT_GAP_MS (a test holds them equal). */
+export const COUNTING_GAP_MS = 5 * 60_000;
+
+/**
+ * Milliseconds from `from` to `to`, two times as exine stamps them (ISO, UTC, ms).
+ * Most neighbours share their date and hour: then the minutes, seconds and
+ * milliseconds are read from the digits, as replaying a long file parses no date.
+ */
+function msBetween(from: string, to: string): number {
+  if (from.length === 24 && to.length === 24 && from.startsWith(to.slice(0, 14))) {
+    const at = (t: string, i: number) => t.charCodeAt(i) - 48;
+    const ms = (t: string) => (at(t, 14) * 10 + at(t, 15)) * 60_000 + (at(t, 17) * 10 + at(t, 18)) * 1000 + at(t, 20) * 100 + at(t, 21) * 10 + at(t, 22);
+    return ms(to) - ms(from);
+  }
+  return Date.parse(to) - Date.parse(from);
+}
+
+/** Counting time as the audit's sitting walk measures it, one event at a time. */
+function timeCounting(d: Draft, event: SessionEvent): void {
+  const clock = d.countingClock;
+  const correcting = correctingAfter(clock.correcting, event.type);
+  if (correcting) {
+    if (!clock.correcting) d.countingClock = { ...clock, correcting };
+    return;
+  }
+  const inSitting = clock.inSitting || event.type === 'sitting';
+  if (clock.inSitting && event.type !== 'sitting') {
+    const dt = msBetween(clock.at, event.at);
+    if (dt > 0 && dt <= COUNTING_GAP_MS) d.countingMs += dt;
+  }
+  // The clock object is replaced only when a flag changes: one object per sitting, not per event.
+  if (inSitting !== clock.inSitting || clock.correcting) d.countingClock = { at: event.at, inSitting, correcting: false };
+  else (d.countingClock as { at: string }).at = event.at;
 }
 
 /**
@@ -51,7 +88,7 @@ type Draft = { -readonly [K in keyof LevelState]: LevelState[K] } & {
 };
 
 function draftOf(state: LevelState): Draft {
-  return { ...state, counts: { ...state.counts }, firstSeen: { ...state.firstSeen }, recent: [...state.recent], ignored: [...state.ignored] };
+  return { ...state, counts: { ...state.counts }, firstSeen: { ...state.firstSeen }, recent: [...state.recent], ignored: [...state.ignored], countingClock: { ...state.countingClock } };
 }
 
 /**
@@ -157,6 +194,7 @@ function step(d: Draft, event: SessionEvent): void {
   d.recent.push(event);
   if (d.recent.length > RECENT_EVENTS) d.recent.shift();
   d.closed = closedAfter(d.closed, event.type);
+  timeCounting(d, event);
   switch (event.type) {
     case 'open':
       // Only line 1 opens a level; the log reader refuses any other.

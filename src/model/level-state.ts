@@ -52,6 +52,10 @@ export interface LevelState extends LevelCounts {
   /** The slide being counted now, and every slide of the level in order, from the open line's on. */
   readonly slide: string | null;
   readonly slides: readonly SlideSpan[];
+  /** Time spent counting, as the audit measures it: intervals between events of counting inside sittings, pauses over five minutes and corrections left out. */
+  readonly countingMs: number;
+  /** What countingMs needs of the events before: the last event of counting, a sitting seen, a correction under way. */
+  readonly countingClock: { readonly at: string; readonly inSitting: boolean; readonly correcting: boolean };
   /** Events the fold could not apply (an undo of a grain that is not counted): kept, reported. */
   readonly ignored: readonly number[];
 }

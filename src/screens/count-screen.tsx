@@ -29,6 +29,8 @@ export interface CountScreenProps {
   readonly rareThreshold?: number;
   /** Remind the analyst to rest the eyes after this many minutes of a sitting; null: never. */
   readonly breakMinutes?: number | null;
+  /** False when a parent screen reads the keys and hands them to the session (the core view); default true. */
+  readonly readKeys?: boolean;
 }
 
 /**
@@ -70,7 +72,7 @@ function MainArea({ main, theme }: { main: CountMain; theme: Theme }) {
 }
 
 /** The counting screen: keys go to the session, and the session's snapshot is drawn as its view (count-view.ts). */
-export function CountScreen({ session, columns, rows, bell = true, rareThreshold = 2, breakMinutes = null }: CountScreenProps) {
+export function CountScreen({ session, columns, rows, bell = true, rareThreshold = 2, breakMinutes = null, readKeys = true }: CountScreenProps) {
   const { exit } = useApp();
   const terminal = useTerminalSize();
   const snapshot = useSyncExternalStore(session.subscribe, session.getSnapshot);
@@ -84,6 +86,7 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
 
   // Every key of a burst is applied in order against the session, never against a rendered value.
   useRawKeys((keys) => {
+    if (!readKeys) return;
     if (session.pressAll(keys) === 'quit') {
       session.shutdown();
       exit();
