@@ -84,3 +84,10 @@ describe('flags at the eyepiece', () => {
     expect(readdirSync(dir)).toEqual([]);
   });
 });
+
+describe('the precision rule in words', () => {
+  it('summary writes its label whole: "half-width ≤ H points"', async () => {
+    const run = await runExine(['summary', new URL('../../demo-sessions/km1-084cm.jsonl', import.meta.url).pathname]);
+    expect(run.stdout).toMatch(/^ {2}half-width ≤ 4 points ≥10% +5\.\d+ of 4\.00 /m);
+  });
+});
