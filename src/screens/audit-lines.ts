@@ -14,7 +14,9 @@ export const clockTime = (iso: string | null) => (iso ? iso.slice(11, 19) : '–
 /** A traverse's row of the table: start, time, grains, types, rate, new types, undos, voids, notes. */
 export function traverseLine(t: TraverseRow, withSlide = false): string {
   const mark = t.voidedWhole ? ' VOID' : '';
-  const slide = withSlide ? ` ${fit(t.slide ?? '–', 5)}` : '';
+  // Slide labels differ at their end (KM1-060-A, KM1-060-B): a long one keeps its tail.
+  const label = t.slide ?? '–';
+  const slide = withSlide ? ` ${fit([...label].length > 10 ? `…${[...label].slice(-9).join('')}` : label, 10)}` : '';
   return `${right(String(t.traverse), 3)} ${fit(clockTime(t.start), 8)} ${right(formatDuration(t.activeMs).slice(3), 5)} ${right(String(t.grains), 5)} ${right(String(t.types), 4)} ${right(perMinute(t.perMinute), 5)} ${right(String(t.newTypes.length), 3)} ${right(String(t.undos), 3)} ${right(String(t.voided), 3)} ${right(String(t.notes), 3)}${slide}${mark}`;
 }
 
