@@ -16,6 +16,9 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     lastSeq: open.seq,
     lastAt: open.at,
     traverse: 1,
+    traverseChanges: [],
+    cf: {},
+    reopens: 0,
     counts: {},
     grains: 0,
     firstSeen: {},
@@ -138,7 +141,7 @@ function plateauOf(d: Draft): number {
 /** The stack as an array, newest first. */
 function stackArray(stack: GrainStack | null): CountedGrain[] {
   const out: CountedGrain[] = [];
-  for (let s = stack; s; s = s.below) out.push({ seq: s.seq, taxon: s.taxon, traverse: s.traverse });
+  for (let s = stack; s; s = s.below) out.push(s.cf ? { seq: s.seq, taxon: s.taxon, traverse: s.traverse, cf: true } : { seq: s.seq, taxon: s.taxon, traverse: s.traverse });
   return out;
 }
 
@@ -156,13 +159,23 @@ function recount(d: Draft, grains: readonly CountedGrain[]): void {
   d.stack = stackOf(grains);
   d.counts = {};
   d.firstSeen = {};
+  const cf: Record<string, number> = {};
   for (let i = grains.length - 1; i >= 0; i--) {
     const g = grains[i] as CountedGrain;
     d.counts[g.taxon] = (d.counts[g.taxon] ?? 0) + 1;
+    if (g.cf) cf[g.taxon] = (cf[g.taxon] ?? 0) + 1;
     d.firstSeen[g.taxon] ??= g.seq;
   }
+  d.cf = cf;
   d.grains = grains.length;
   d.sinceNewType = plateauOf(d);
+}
+
+/** cf. grains of `taxon` up or down by one; a taxon with none left drops out. */
+function addCf(d: Draft, taxon: string, by: 1 | -1): void {
+  const n = (d.cf[taxon] ?? 0) + by;
+  const { [taxon]: _old, ...rest } = d.cf;
+  d.cf = n > 0 ? { ...rest, [taxon]: n } : rest;
 }
 
 function voidGrains(d: Draft, event: SessionEvent & { type: 'void' }): void {
@@ -205,10 +218,14 @@ function step(d: Draft, event: SessionEvent): void {
       if (inPollenSum(d.keymap, event.taxon)) d.sinceNewType = d.firstSeen[event.taxon] === undefined ? 0 : d.sinceNewType + 1;
       d.firstSeen[event.taxon] ??= event.seq;
       d.grains++;
-      d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, below: d.stack };
+      if (event.cf) {
+        d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, cf: true, below: d.stack };
+        addCf(d, event.taxon, 1);
+      } else d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, below: d.stack };
       return;
     case 'undo': {
-      const taxon = findGrain(d.stack, event.of)?.taxon;
+      const undone = findGrain(d.stack, event.of);
+      const taxon = undone?.taxon;
       const stack = withoutGrain(d.stack, event.of);
       if (stack === undefined || taxon === undefined) {
         d.ignored.push(event.seq);
@@ -227,6 +244,7 @@ function step(d: Draft, event: SessionEvent): void {
       d.grains--;
       d.stack = stack;
       d.undos++;
+      if (undone?.cf) addCf(d, taxon, -1);
       // Only undoing a type's first grain can move the newest type; that rare case walks the stack.
       if (inPollenSum(d.keymap, taxon)) {
         if (wasFirst) d.sinceNewType = plateauOf(d);
@@ -235,7 +253,23 @@ function step(d: Draft, event: SessionEvent): void {
       return;
     }
     case 'traverse':
+      d.traverseChanges = [...d.traverseChanges, { seq: event.seq, from: d.traverse, to: event.traverse }];
       d.traverse = event.traverse;
+      return;
+    case 'traverse-undo': {
+      // Only the latest change that stands can be taken back, and only to where it came from.
+      const last = d.traverseChanges.at(-1);
+      if (!last || last.seq !== event.of || last.from !== event.traverse) {
+        d.ignored.push(event.seq);
+        return;
+      }
+      d.traverseChanges = d.traverseChanges.slice(0, -1);
+      d.traverse = event.traverse;
+      return;
+    }
+    case 'reopen':
+      d.finishedAt = null;
+      d.reopens++;
       return;
     case 'note': {
       const noted = event.grain === null ? undefined : findGrain(d.stack, event.grain);

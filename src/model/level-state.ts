@@ -6,6 +6,15 @@ export interface CountedGrain {
   readonly seq: number;
   readonly taxon: string;
   readonly traverse: number;
+  /** A cf. grain (the identification is probable, not certain). */
+  readonly cf?: true;
+}
+
+/** A traverse change that stands (not taken back), with the traverse it left. */
+export interface TraverseChange {
+  readonly seq: number;
+  readonly from: number;
+  readonly to: number;
 }
 
 /** Grains still counted, newest first: undo pops in O(1) and nothing is copied. */
@@ -29,6 +38,12 @@ export interface LevelState extends LevelCounts {
   readonly lastSeq: number;
   readonly lastAt: string;
   readonly traverse: number;
+  /** Traverse changes that stand, oldest first: an undo right after one takes it back. */
+  readonly traverseChanges: readonly TraverseChange[];
+  /** cf. grains still counted, by taxon (they count in `counts` too). */
+  readonly cf: Readonly<Record<string, number>>;
+  /** How often a finished level was opened again for counting. */
+  readonly reopens: number;
   /** The grains still counted, with their traverses. */
   readonly stack: GrainStack | null;
   readonly undos: number;
@@ -40,7 +55,7 @@ export interface LevelState extends LevelCounts {
   readonly sittingStartedAt: string;
   /** True when the last event is a close or finish: the previous run ended cleanly. */
   readonly closed: boolean;
-  /** When the analyst marked the level finished (the latest time), or null. */
+  /** When the analyst marked the level finished (the latest time), or null; a reopen makes it null again. */
   readonly finishedAt: string | null;
   readonly repairs: number;
   /** The backups the repair events name. */
