@@ -1,3 +1,4 @@
+import { checkKeymapValue } from '../keymap/parse-keymap.js';
 import type { Keymap } from '../keymap/keymap.js';
 import type { LevelState } from '../model/level-state.js';
 import { describeRules, sameRules } from '../rules/rule-set.js';
@@ -26,27 +27,17 @@ export interface CoreLevel {
   readonly mtimeMs: number;
 }
 
-/**
- * The keymap a level was opened with, as the reader normalises copies (a
- * format-2 copy gains the actions added since): its keymap now, less the types
- * added while counting. A group a new type brought stays; such a level is rare
- * and is then named as having its own keymap.
- */
-function openedKeymap(state: LevelState): Keymap {
-  if (state.addedTypes.length === 0) return state.keymap;
-  const added = new Set(state.addedTypes);
-  const keys = Object.fromEntries(Object.entries(state.keymap.keys).filter(([, b]) => !added.has(b.taxon)));
-  return { ...state.keymap, keys, order: state.keymap.order.filter((k) => k in keys) };
-}
-
 /** How a level stands against the core it sits in. Pure. */
 export function judgeLevel(config: CoreConfig, state: LevelState): Pick<CoreLevel, 'outside' | 'differences' | 'overrides'> {
   const h = state.header;
   const made = h.fromCore ?? null;
   const differences: string[] = [];
   if (h.site !== config.site || h.core !== config.core) differences.push(`core ${[h.site, h.core].filter(Boolean).join(' ') || '(none recorded)'}`);
-  if (JSON.stringify(openedKeymap(state)) !== JSON.stringify(config.keymap)) {
-    if (!made?.overrides.includes('keymap')) differences.push(`own keymap "${state.keymap.name}"`);
+  // Compared as read, defaults filled in: a level recorded before an action existed (cf.) is the same keymap.
+  const recorded = checkKeymapValue(h.keymap, 'recorded in line 1');
+  const asRead = (k: Keymap) => JSON.stringify(k);
+  if ((recorded.ok ? asRead(recorded.keymap) : JSON.stringify(h.keymap)) !== asRead(config.keymap)) {
+    if (!made?.overrides.includes('keymap')) differences.push(`own keymap "${h.keymap.name}"`);
   }
   if (!made && !sameRules(h.rules, config.rules)) differences.push(`own rules: ${describeRules(h.rules)}`);
   if (!made && differences.length === 0) differences.push('not made in this core (copied in)');
