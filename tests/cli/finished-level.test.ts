@@ -22,6 +22,7 @@ describe('a finished level', () => {
     const t = startInPty(['count', 'done.jsonl'], dir);
     await t.ready(/READ-ONLY: this level is finished/);
     expect(t.output()).toMatch(/FINISHED \d{4}-\d\d-\d\d \d\d:\d\d UTC · read-only/);
+    expect(t.output()).toMatch(/read-only: no key counts · Ctrl-C quits/);
     t.type('aab\t\x7f');
     t.type('\x03');
     expect(await t.exited()).toBe(0);
