@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { flagCases, keymapCases, sessionCases, type FaultCase } from './fault-cases.js';
-import { addVerdict, emptyTally, runFaultCase, type FaultTally } from './fault-run.js';
+import { addVerdict, childRetries, emptyTally, runFaultCase, type FaultTally } from './fault-run.js';
 
 const KINDS: readonly [string, () => fc.Arbitrary<FaultCase>][] = [
   ['session files', sessionCases],
@@ -43,7 +43,7 @@ export async function benchFaults(cases: number, seed = Number(process.env.EXINE
     `    ${''.padEnd(14)} cases  accepted refused · not one line  stack traces  hangs >5 s  made unreadable  raw control chars   (goal: 0 from "not one line" on)`,
     ...lines,
     `    ${'all'.padEnd(14)} ${row(total)}`,
-    `    of these, ${total.childRuns} also ran through the real program`,
+    `    of these, ${total.childRuns} also ran through the real program (${childRetries.count} started again after a 5 s timeout on the busy machine; a hang is a timeout twice)`,
     ...total.examples.map((e) => `    ! ${e}`),
   ];
 }

@@ -59,9 +59,17 @@ async function runMain(args: readonly string[], cwd: string): Promise<Verdict> {
 }
 
 /** The same command line through the real program: a stack trace or a hang shows here even if main() hid it. */
+export const childRetries = { count: 0 };
+
 function runChild(args: readonly string[], cwd: string): Verdict {
-  const r = spawnSync(process.execPath, [BIN, ...args], { cwd, encoding: 'utf8', timeout: HANG_MS, stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, NO_COLOR: '1' } });
-  if (r.error || r.signal) return { outcome: 'hang', detail: `child exine ${args.join(' ')}: ${r.error?.message ?? r.signal}` };
+  const spawn = () => spawnSync(process.execPath, [BIN, ...args], { cwd, encoding: 'utf8', timeout: HANG_MS, stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, NO_COLOR: '1' } });
+  let r = spawn();
+  // On a shared machine a node start alone can take seconds: a hang is one that happens twice.
+  if (r.error || r.signal) {
+    childRetries.count++;
+    r = spawn();
+  }
+  if (r.error || r.signal) return { outcome: 'hang', detail: `child exine ${args.join(' ')}: ${r.error?.message ?? r.signal} twice`};
   if (/^\s+at /m.test(r.stderr) || ![0, 1, 2].includes(r.status ?? -1)) return { outcome: 'stack-trace', detail: `child exine ${args.join(' ')}: ${r.stderr.slice(0, 300)}` };
   return r.status === 0 ? ok() : { outcome: 'refused', detail: r.stderr.trim() };
 }

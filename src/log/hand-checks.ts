@@ -86,6 +86,7 @@ export const HAND_CHECKS: ReadonlyMap<string, Check> = new Map<string, Check>([
   ['restore', (v) => stamp(v) && posInt(v.of) && str(v.reason)],
   ['repair', (v) => stamp(v) && str(v.damage) && posInt(v.line) && count(v.cutBytes) && str(v.backup)],
   ['rules', (v) => stamp(v) && rules(v.rules) && spike(v.spike)],
+  ['slide', (v) => stamp(v) && trimmed(v.slide) && posInt(v.traverse)],
   ['close', stamp],
   ['finish', stamp],
   [
@@ -104,7 +105,8 @@ export const HAND_CHECKS: ReadonlyMap<string, Check> = new Map<string, Check>([
       // z.unknown() still wants the field there; its content is checked as a keymap.
       'keymap' in v &&
       rules(v.rules) &&
-      spike(v.spike),
+      spike(v.spike) &&
+      optional((x) => object(x) && Array.isArray(x.overrides) && x.overrides.every(str))(v.fromCore),
   ],
 ]);
 

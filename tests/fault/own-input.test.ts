@@ -49,6 +49,21 @@ describe('an output that is one of the inputs', () => {
     expect(readFileSync(join(dir, 'l.jsonl'), 'utf8')).toBe(before);
   });
 
+  it('keys from-list refuses an --out that is its list, and keys --card one that is its keymap, --force or not', async () => {
+    const dir = tempDir();
+    writeFileSync(join(dir, 'taxa.txt'), 'Pinus, trees\nBetula, trees\n');
+    const list = await runExine(['keys', 'from-list', 'taxa.txt', '--out', './taxa.txt', '--force'], dir);
+    expect(list.code).toBe(2);
+    expect(oneLine(list)).toMatch(/exine keys from-list: the output \.\/taxa\.txt is one of the files it reads \(taxa\.txt is the same file\)/);
+    expect(readFileSync(join(dir, 'taxa.txt'), 'utf8')).toBe('Pinus, trees\nBetula, trees\n');
+    const keymap = '{"name":"x","keys":{"q":{"taxon":"Quercus","group":"trees"}}}';
+    writeFileSync(join(dir, 'km.txt'), keymap);
+    const card = await runExine(['keys', 'km.txt', '--card', 'km.txt', '--force'], dir);
+    expect(card.code).toBe(2);
+    expect(oneLine(card)).toMatch(/exine keys: the output km\.txt is one of the files it reads/);
+    expect(readFileSync(join(dir, 'km.txt'), 'utf8')).toBe(keymap);
+  });
+
   it('the helper lets through an output that does not exist yet or is another file', () => {
     const dir = tempDir();
     levelIn(dir);

@@ -1,6 +1,7 @@
 import { accessSync, constants, existsSync, readFileSync } from 'node:fs';
 import { basename, dirname, extname, resolve } from 'node:path';
 import { ExineError, UsageError } from '../../errors.js';
+import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { emptyKeymapText } from '../../keymap/edit-keymap-text.js';
 import { keymapFromList } from '../../keymap/keymap-from-list.js';
@@ -29,6 +30,7 @@ export function keysFromList(args: string[], io: Io): number {
   const list = parseTaxonList(text, positionals[0] as string);
   if (!list.ok) throw new ExineError(list.message);
   const out = resolve(io.cwd, values.out);
+  refuseOwnInput('keys from-list', values.out, [positionals[0] as string], io.cwd);
   if (!values.force && existsSync(out)) throw new ExineError(`${values.out} already exists; add --force to replace it`);
   const made = keymapFromList(list.entries, values.name ?? nameFrom(values.out), values.out);
   if (!made.ok) throw new ExineError(made.message);
@@ -69,7 +71,8 @@ export async function keysBuild(mode: 'new' | 'edit', args: string[], io: Io): P
   const { runKeymapBuilder } = await import('../../screens/run-keymap-builder.js');
   const end = await runKeymapBuilder(start, file);
   if (!end.changed || end.keymap.order.length === 0) {
-    io.stdout.write(`${file}: ${mode === 'new' ? 'no keys were made; nothing written' : 'unchanged'}\n`);
+    const why = end.keymap.order.length === 0 ? (mode === 'new' ? 'no keys were made' : 'every key was freed, and a keymap needs one') : 'unchanged';
+    io.stdout.write(`${file}: ${why}; nothing written\n`);
     return 0;
   }
   // A new file never replaces one that appeared meanwhile (unless --force); an edit replaces its own file.

@@ -28,7 +28,8 @@ function writeCard(name: string, card: string, paperFlag: string | undefined, fo
   if (!(paper in PAPER)) throw new UsageError(`exine keys: --paper must be ${Object.keys(PAPER).join(' or ')}, not "${paperFlag}"`);
   const ext = extname(card).toLowerCase();
   if (ext !== '.svg' && ext !== '.txt') throw new UsageError(`exine keys: --card must end in .svg (a drawing to print) or .txt (plain text), not "${card}"`);
-  const { keymap } = loadKeymap(name, io.cwd);
+  const { keymap, path } = loadKeymap(name, io.cwd);
+  refuseOwnInput('keys', card, [path], io.cwd);
   const body = ext === '.svg' ? keyCardSvg(keymap, paper as Paper) : `${drawLayout(keymap)}\n`;
   writeFileAtomic(resolve(io.cwd, card), body, force);
   io.stdout.write(`${card}: key card of ${keymap.name}${ext === '.svg' ? ` (${paper.toUpperCase()} landscape; print at 100%)` : ''}\n`);
