@@ -71,6 +71,7 @@ for (const v of [
   { ...stamp, type: 'rules', rules: { targetSum: 300, precision: { halfWidth: 5, share: 10, taxa: ['Alnus'] }, mode: 'all' }, spike: { tablets: 1, perTablet: 9666, perTabletSd: null, volume: 1, mass: null, accumulationRate: null } },
   { ...stamp, type: 'void', grain: null, traverse: 2, reason: 'r' },
   { ...stamp, type: 'note', text: 't', grain: null, stage: { x: 1, y: 2.5 } },
+  { ...stamp, type: 'slide', slide: 'KM1-012-B', traverse: 3 },
 ]) {
   const list = templates.get(v.type as string) ?? [];
   if (list.length < 20) list.push(v);
@@ -109,6 +110,8 @@ describe('hand checks of session lines', () => {
     'property: the %s check accepts only what its zod schema accepts (fast-check)',
     (kind, schema, object) => {
       const check = HAND_CHECKS.get(kind) as (v: Record<string, unknown>) => boolean;
+      // The records are valid lines with a few fields changed: a kind with a hand check needs one here.
+      expect(templates.has(kind), `add a valid "${kind}" line to the templates of this test`).toBe(true);
       let accepted = 0;
       fc.assert(
         fc.property(recordsOf(kind, object), (v) => {
