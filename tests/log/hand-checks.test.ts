@@ -73,6 +73,9 @@ for (const v of [
   { ...stamp, type: 'slide', slide: 'B', traverse: 9 },
   { ...stamp, type: 'note', text: 't', grain: null, stage: { x: 1, y: 2.5 } },
   { ...stamp, type: 'slide', slide: 'KM1-012-B', traverse: 3 },
+  { ...stamp, type: 'traverse-undo', of: 4, traverse: 2 },
+  { ...stamp, type: 'reopen', reason: 'recount the last traverse' },
+  { ...stamp, type: 'grain', taxon: 'Tilia', traverse: 1, key: 't', cf: true },
 ]) {
   const list = templates.get(v.type as string) ?? [];
   if (list.length < 20) list.push(v);
