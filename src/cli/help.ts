@@ -31,7 +31,9 @@ Options
   --level L           level label (default: the file name)
   --depth D           depth of the level in the core (a number, e.g. cm);
                       with a core folder for FILE, the level to count
-                      (exine count DIR --depth D: see exine core --help)
+                      (exine count DIR --depth D: see exine core --help);
+                      a depth below 0 is written --depth=-3 and needs
+  --allow-negative-depth  (a core measured from a datum above the sediment)
   --site S            site name
   --core C            core label
   --slide S           slide label; on resume another slide is recorded
@@ -40,6 +42,8 @@ Options
   --quiet             no terminal bells (preference: bell)
   --rare N            list types with at most N grains as rare (preference: rare)
   --break MIN|off     remind to rest the eyes after MIN minutes (preference: break)
+  --reopen "REASON"   count on in a finished level (recorded with the reason);
+                      without it a finished level opens read-only
   -h, --help          this help
 
 Stop rules (recorded in FILE; on resume a flag changes only its own rule,
@@ -66,8 +70,9 @@ Exotic marker spike (for concentration; recorded in FILE)
   --accumulation-rate R   sediment accumulation in cm/yr, for influx
 
 Keys
-  taxon keys count one grain each; Backspace undoes the last grain; Tab starts
-  the next traverse; Enter writes a note on the last grain ("@12.4,88.1 cf.
+  taxon keys count one grain each; Backspace undoes the last grain (right after
+  a Tab: the traverse change); Tab starts the next traverse; ' then a taxon key
+  counts a cf. grain (probable, not certain); Enter writes a note on the last grain ("@12.4,88.1 cf.
   Tilia" records the stage position); = adds a type that is not in the keymap
   ("Ilex aquifolium, shrubs") and counts it; ? shows the keymap (the keymap may
   move these); Ctrl-F then y marks the level finished and quits; Ctrl-C quits

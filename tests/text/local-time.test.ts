@@ -23,6 +23,7 @@ describe('local times with their zone', () => {
 
 const row = (over: Partial<TraverseRow>): TraverseRow => ({
   traverse: 3,
+  slide: null,
   start: '2026-11-02T09:00:00.000Z',
   sittingStart: '2026-11-02T08:30:00.000Z',
   empty: false,
