@@ -1,6 +1,7 @@
 import { inPollenSum } from '../keymap/keymap.js';
 import type { SessionEvent } from '../model/events.js';
 import type { LevelState } from '../model/level-state.js';
+import { slideOfTraverse } from '../model/slides.js';
 import { correctionsOf, type Correction } from './corrections.js';
 import { evennessAcrossTraverses, type Evenness } from './evenness.js';
 import { indexGrains, type GrainIndex } from './grain-index.js';
@@ -19,6 +20,8 @@ export const DEFAULT_GAP_MS = 5 * 60_000;
 
 export interface TraverseRow {
   readonly traverse: number;
+  /** The slide it was counted on. */
+  readonly slide: string | null;
   /** Time of its first event; null for a traverse with no event yet. */
   readonly start: string | null;
   /** Time spent in it: intervals between its events, pauses left out. */
@@ -139,6 +142,7 @@ function traverseRows(walk: SittingWalk, countsBy: ReadonlyMap<number, ReadonlyM
       const ms = log?.activeMs ?? 0;
       return {
         traverse: t,
+        slide: slideOfTraverse(state.slides, t),
         start: log?.firstAt ?? null,
         activeMs: ms,
         grains: counted,

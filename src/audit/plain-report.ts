@@ -1,6 +1,7 @@
 import type { Verdict } from '../log/verify-log.js';
 import { formatDuration } from '../text/durations.js';
 import type { LevelState } from '../model/level-state.js';
+import { slideCounts, slideNames } from '../model/slides.js';
 import { fit, plural, right } from '../text/cells.js';
 import { perMinute } from '../text/numbers.js';
 import { describeCell, POOLED } from './evenness.js';
@@ -24,13 +25,21 @@ export function evennessLines(audit: LevelAudit): string[] {
   return lines;
 }
 
+/** Grains per slide, when the level was counted on more than one. */
+function slideLines(state: LevelState): string[] {
+  if (state.slides.length < 2) return [];
+  return ['', 'Slides', ...slideCounts(state).map((s) => `  ${fit(s.slide ?? '–', 12)}  from traverse ${right(String(s.firstTraverse), 3)}  ${plural(s.grains, 'grain')}`)];
+}
+
 /** The audit as text, for a lab notebook or an appendix. */
 export function plainReport(name: string, state: LevelState, audit: LevelAudit, verdict: Verdict): string {
   const h = state.header;
   const where = [h.site, h.core].filter(Boolean).join(' ');
+  // A slide column only for a level counted on more than one slide.
+  const several = state.slides.length > 1;
   const lines: string[] = [
     `Audit of ${name}`,
-    `${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · slide ${h.slide ?? '–'} · analyst ${h.analyst ?? '–'}`,
+    `${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · ${state.slides.length > 1 ? 'slides' : 'slide'} ${slideNames(state).join(', ')} · analyst ${h.analyst ?? '–'}`,
     `keymap "${state.keymap.name}" · counted ${day(audit.firstAt)} to ${day(audit.lastAt)} UTC · ${state.finishedAt ? `finished ${day(state.finishedAt)}` : 'not finished'}`,
     `integrity: ${verdict.intact ? 'intact' : 'DAMAGED'}: ${verdict.summary}`,
     ...verdict.warnings.map((w) => `  warning: ${w}`),
@@ -42,12 +51,13 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
       `  ${right(String(s.sitting), 2)}  ${day(s.start)} – ${day(s.end).slice(11)}  counting ${formatDuration(s.countingMs)}  ${plural(s.grains, 'grain')} recorded${s.pauses.length ? `  pauses: ${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min after #${p.afterSeq}`).join(', ')}` : ''}${s.closedCleanly ? '' : '  (not closed cleanly)'}`,
       `      ${s.start.slice(11, 16)} ${timelineBar(s, 48)} ${s.end.slice(11, 16)}`,
     ]),
+    ...slideLines(state),
     '',
     'Traverses',
-    `  ${right('#', 3)}  ${fit('start (UTC)', 16)}  ${right('time', 8)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new', 3)}  ${right('undo', 4)}  ${right('void', 4)}  ${right('notes', 5)}  new types`,
+    `  ${right('#', 3)}  ${several ? `${fit('slide', 6)}  ` : ''}${fit('start (UTC)', 16)}  ${right('time', 8)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new', 3)}  ${right('undo', 4)}  ${right('void', 4)}  ${right('notes', 5)}  new types`,
     ...audit.traverses.map(
       (t) =>
-        `  ${right(String(t.traverse), 3)}  ${fit(day(t.start), 16)}  ${right(formatDuration(t.activeMs), 8)}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 3)}  ${right(String(t.undos), 4)}  ${right(String(t.voided), 4)}  ${right(String(t.notes), 5)}  ${t.newTypes.join(', ')}${t.voidedWhole ? `  VOIDED: ${t.voidedWhole.reason}` : ''}`,
+        `  ${right(String(t.traverse), 3)}  ${several ? `${fit(t.slide ?? '–', 6)}  ` : ''}${fit(day(t.start), 16)}  ${right(formatDuration(t.activeMs), 8)}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 3)}  ${right(String(t.undos), 4)}  ${right(String(t.voided), 4)}  ${right(String(t.notes), 5)}  ${t.newTypes.join(', ')}${t.voidedWhole ? `  VOIDED: ${t.voidedWhole.reason}` : ''}`,
     ),
     '',
     ...evennessLines(audit),

@@ -13,6 +13,7 @@ import { benchResume } from './resume.js';
 import { benchTallyPath } from './tally-path.js';
 import { benchTestSuite } from './test-suite.js';
 import { benchAuditScale, benchStartUp } from './start-up.js';
+import { benchKeyFrame } from './key-frame.js';
 
 type Section = { name: string; run: () => string[] | Promise<string[]>; optIn?: boolean };
 
@@ -30,6 +31,7 @@ const SECTIONS: Section[] = [
   { name: 'kill', run: () => benchKill(Number(process.env.EXINE_KILL_ROUNDS ?? 1000)), optIn: true },
   { name: 'start-up', run: benchStartUp },
   { name: 'audit-scale', run: benchAuditScale },
+  { name: 'key-frame', run: () => benchKeyFrame() },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];
 

@@ -12,6 +12,8 @@ Commands
   verify FILE    check a session file's integrity chain
   keys PATH      check or make a keymap (new, edit, from-list); print its card
   prefs          show or set preferences (bell, rare, break, keymap, analyst)
+  core init DIR  make a core folder (core.json: keymap, rules, markers, depths)
+  core DIR       the levels of a core at a glance
 
 Run "exine <command> --help" for the options of one command.`;
 
@@ -161,6 +163,24 @@ Flags of exine count override preferences; preferences override the defaults.
 Examples
   exine prefs set analyst "R. Fern"
   exine prefs set break off`,
+  core: `Usage
+  exine core init DIR --site S --core C [options]
+  exine core DIR [--plain | --json]
+
+init makes DIR (or uses an empty one) a core folder: DIR/core.json holds the
+site and core names, a copy of the keymap, the default stop rules, the marker
+batch and the planned depths. Levels counted with exine count DIR --depth D
+inherit them. core.json may be edited by hand; every command checks it again.
+
+Options of init
+  --site S, --core C  names recorded in every level (required)
+  --keymap PATH|NAME  keymap copied into core.json (default: the keymap preference)
+  --depths A:B:STEP | D1,D2,…  planned depths, e.g. 4:200:8
+  --target, --precision, --coverage, --plateau, --markers, --conc-error,
+  --rule-mode, --min-sum   default stop rules, as for exine count
+  --tablets T --per-tablet S [--per-tablet-sd SD]   the marker batch
+                      (volume or mass is per level: give it to exine count)
+  -h, --help          this help`,
   keys: `Usage
   exine keys PATH|NAME
   exine keys PATH|NAME --card card.svg|card.txt [--paper a4|letter] [--force]

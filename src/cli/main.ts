@@ -14,6 +14,7 @@ const COMMANDS: Readonly<Record<string, () => Promise<Command>>> = {
   verify: async () => (await import('./commands/verify.js')).verifyCommand,
   keys: async () => (await import('./commands/keys.js')).keysCommand,
   prefs: async () => (await import('./commands/prefs.js')).prefsCommand,
+  core: async () => (await import('./commands/core.js')).coreCommand,
 };
 
 /** Run one exine command line; returns the exit code (the caller sets it on the process). */

@@ -1,5 +1,6 @@
 import { groupRank, roleOf } from '../keymap/keymap.js';
 import type { LevelState } from '../model/level-state.js';
+import { slideCounts, slideOf } from '../model/slides.js';
 import { clopperPearsonInterval } from '../stats/clopper-pearson.js';
 import { concentration } from '../stats/concentration.js';
 import { levelTable } from '../stats/level-table.js';
@@ -9,6 +10,14 @@ export interface ExportLevel {
   readonly state: LevelState;
   /** Session file name, so each row can be traced to its source. */
   readonly source: string;
+}
+
+/** The slides of a level in order, "A;B" (one slide: its name, as before slides were events). */
+export const slidesCell = (state: LevelState): string => slideCounts(state).map((s) => s.slide ?? '–').join(';');
+
+/** "A=312;B=190": grains per slide, a cell that splits with strsplit in R or Text to Columns in a spreadsheet. */
+export function bySlideCell(state: LevelState, taxon?: string): string {
+  return slideCounts(state).map((s) => `${s.slide ?? '–'}=${taxon === undefined ? s.grains : (s.counts[taxon] ?? 0)}`).join(';');
 }
 
 const round = (value: number | null, places: number): number | null =>
@@ -37,6 +46,7 @@ export const LONG_COLUMNS = [
   'conc_high',
   'conc_unit',
   'influx',
+  'count_by_slide',
   'source',
 ] as const;
 
@@ -52,6 +62,8 @@ export function longRows(levels: readonly ExportLevel[]): Cell[][] {
     const h = state.header;
     const table = levelTable(state);
     const markers = table.markers;
+    const slides = slidesCell(state);
+    const several = state.slides.length > 1;
     for (const r of table.rows) {
       const exact = r.basis > 0 ? clopperPearsonInterval(r.count, r.basis) : null;
       const conc = state.spike && roleOf(state.keymap, r.group) !== 'marker' ? concentration(r.count, markers, state.spike) : null;
@@ -60,7 +72,7 @@ export function longRows(levels: readonly ExportLevel[]): Cell[][] {
         h.depth,
         h.site,
         h.core,
-        h.slide,
+        slides,
         r.taxon,
         r.group,
         r.inSum ? 'yes' : 'no',
@@ -78,6 +90,7 @@ export function longRows(levels: readonly ExportLevel[]): Cell[][] {
         round(conc?.high ?? null, 1),
         conc ? conc.unit : null,
         round(conc?.influx ?? null, 2),
+        several ? bySlideCell(state, r.taxon) : null,
         source,
       ]);
     }
@@ -112,7 +125,7 @@ export function wideTable(levels: readonly ExportLevel[]): { columns: string[]; 
     .sort(([, a], [, b]) => a.rank - b.rank || a.first - b.first)
     .map(([name]) => name);
   // Concentration and influx of the pollen sum beside the counts, for the concentration diagram of the core.
-  const columns = ['level', 'depth', 'site', 'core', 'slide', 'pollen_sum', 'grains', 'markers', 'concentration', 'conc_unit', 'influx', ...names];
+  const columns = ['level', 'depth', 'site', 'core', 'slide', 'grains_by_slide', 'pollen_sum', 'grains', 'markers', 'concentration', 'conc_unit', 'influx', ...names];
   const rows = ordered.map((l, i): Cell[] => {
     const h = l.state.header;
     const table = tables[i] as (typeof tables)[number];
@@ -123,7 +136,8 @@ export function wideTable(levels: readonly ExportLevel[]): { columns: string[]; 
       h.depth,
       h.site,
       h.core,
-      h.slide,
+      slidesCell(l.state),
+      l.state.slides.length > 1 ? bySlideCell(l.state) : null,
       table.pollenSum,
       table.grains,
       l.state.spike ? markers : null,
@@ -144,7 +158,7 @@ export function noteRows(levels: readonly ExportLevel[]): Cell[][] {
   for (const { state, source } of orderLevels(levels)) {
     const h = state.header;
     for (const n of state.notes) {
-      rows.push([h.level, h.depth, h.site, h.core, h.slide, n.seq, n.at, n.grain, n.taxon, n.traverse, n.stage?.x ?? null, n.stage?.y ?? null, n.text, source]);
+      rows.push([h.level, h.depth, h.site, h.core, slideOf(state.slides, n.seq), n.seq, n.at, n.grain, n.taxon, n.traverse, n.stage?.x ?? null, n.stage?.y ?? null, n.text, source]);
     }
   }
   return rows;

@@ -1,6 +1,8 @@
 import { describeRules } from '../rules/rule-set.js';
 import type { LevelState } from '../model/level-state.js';
 import { levelReport } from '../rules/level-report.js';
+import { inPollenSum } from '../keymap/keymap.js';
+import { slideCounts } from '../model/slides.js';
 import { clopperPearsonInterval } from '../stats/clopper-pearson.js';
 import { rarefy } from '../stats/rarefaction.js';
 import { sisonGlazIntervals } from '../stats/simultaneous.js';
@@ -25,6 +27,13 @@ export function levelSummary(state: LevelState, rarefyAt: readonly number[] = []
     site: h.site,
     core: h.core,
     slide: h.slide,
+    // Every slide the level was counted on, with the grains from it that count now.
+    slides: slideCounts(state).map((c) => ({
+      slide: c.slide,
+      firstTraverse: c.firstTraverse,
+      grains: c.grains,
+      pollenSum: Object.entries(c.counts).reduce((a, [taxon, n]) => a + (inPollenSum(state.keymap, taxon) ? n : 0), 0),
+    })),
     analyst: h.analyst,
     keymap: state.keymap.name,
     pollenSum: table.pollenSum,

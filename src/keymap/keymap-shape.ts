@@ -24,8 +24,7 @@ export function isPlainKeymap(v: unknown): v is RawKeymap {
   if (!object(v) || !str(v.name) || v.name.trim().length === 0 || !object(v.keys)) return false;
   for (const field of Object.keys(v)) if (!KNOWN.has(field)) return false;
   for (const b of Object.values(v.keys)) {
-    if (!object(b) || !str(b.taxon) || b.taxon.trim().length === 0 || !str(b.group)) return false;
-    if (b.inSum !== undefined && b.inSum !== false) return false;
+    if (!object(b) || !str(b.taxon) || b.taxon.trim().length === 0 || !str(b.group) || !(b.inSum === undefined || b.inSum === false)) return false;
   }
   if (v.actions !== undefined && !(object(v.actions) && Object.values(v.actions).every((k) => k === null || str(k)))) return false;
   if (v.sum !== undefined && !(Array.isArray(v.sum) && v.sum.every(str))) return false;

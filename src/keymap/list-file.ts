@@ -12,7 +12,7 @@ export interface ListEntry {
 export type ListResult = { ok: true; entries: ListEntry[] } | { ok: false; message: string };
 
 /** One CSV record's fields (RFC 4180 quotes; the list is one record a line). */
-function fields(line: string): string[] | null {
+function fields(line: string, sep: string): string[] | null {
   const out: string[] = [];
   let i = 0;
   while (i <= line.length) {
@@ -33,10 +33,10 @@ function fields(line: string): string[] | null {
         value += line[i++];
       }
       out.push(value.trim());
-      while (i < line.length && line[i] !== ',') if (line[i++] !== ' ') return null;
+      while (i < line.length && line[i] !== sep) if (line[i++] !== ' ') return null;
       i++;
     } else {
-      const end = line.indexOf(',', i);
+      const end = line.indexOf(sep, i);
       const stop = end < 0 ? line.length : end;
       out.push(line.slice(i, stop).trim());
       i = stop + 1;
@@ -48,19 +48,23 @@ function fields(line: string): string[] | null {
 /**
  * A lab's taxon list: one `taxon, group` a line (an optional third field gives
  * the group's role), or a CSV whose header names the columns `taxon` and
- * `group` (and `role`) in any order. Blank lines and lines starting `#` are skipped.
+ * `group` (and `role`) in any order, separated by commas, semicolons or tabs.
+ * Blank lines and lines starting `#` are skipped.
  */
 export function parseTaxonList(text: string, source: string): ListResult {
   const fail = (line: number, message: string): ListResult => ({ ok: false, message: `${source}: line ${line}: ${message}` });
   const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
   let columns = { taxon: 0, group: 1, role: 2 as number | null };
   let first = true;
+  // A spreadsheet may save with tabs, or with semicolons where the comma is the decimal mark.
+  const firstLine = lines.find((l) => l.trim() && !l.trimStart().startsWith('#')) ?? '';
+  const sep = firstLine.includes('\t') ? '\t' : firstLine.includes(';') && !firstLine.includes(',') ? ';' : ',';
   const entries: ListEntry[] = [];
   const seen = new Map<string, number>();
   for (let n = 1; n <= lines.length; n++) {
     const raw = lines[n - 1] as string;
     if (!raw.trim() || raw.trimStart().startsWith('#')) continue;
-    const f = fields(raw);
+    const f = fields(raw, sep);
     if (!f) return fail(n, 'a quote is not closed');
     if (first) {
       first = false;

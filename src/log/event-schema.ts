@@ -56,6 +56,7 @@ const open = z.object({
   keymap: z.unknown(),
   rules,
   spike,
+  fromCore: z.looseObject({ overrides: z.array(z.string()) }).optional(),
 });
 
 const grain = z.object({
@@ -106,6 +107,7 @@ const voidEvent = z
   })
   .refine((v) => (v.grain === null) !== (v.traverse === null), { message: 'a void names one grain or one traverse' });
 const restore = z.object({ ...stamp, type: z.literal('restore'), of: z.number().int().positive(), reason: text });
+const slide = z.object({ ...stamp, type: z.literal('slide'), slide: z.string().trim().min(1), traverse: z.number().int().positive() });
 const close = z.object({ ...stamp, type: z.literal('close') });
 const finish = z.object({ ...stamp, type: z.literal('finish') });
 
@@ -123,6 +125,7 @@ export const eventSchema = z.discriminatedUnion('type', [
   repair,
   voidEvent,
   restore,
+  slide,
   close,
   finish,
 ]);

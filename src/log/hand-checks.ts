@@ -26,7 +26,19 @@ const optional = (f: (x: unknown) => boolean) => (x: unknown) => x === undefined
 const object = (x: unknown): x is V => typeof x === 'object' && x !== null && !Array.isArray(x);
 const oneOf = (names: readonly string[]) => (x: unknown) => str(x) && names.includes(x);
 
-const stamp = (v: V) => posInt(v.seq) && str(v.at) && ISO_MS.test(v.at) && str(v.prev);
+// ISO_MS is a date of 10 characters, "T", and a time of 13. Lines of one day share the date, so
+// the last date that passed is remembered and only the time is tested again: the same verdict.
+const ISO_TIME = /^T(?:[01]\d|2[0-3]):[0-5]\d:[0-5]\d\.\d{3}Z$/;
+let lastDate = '';
+function isoMs(at: string): boolean {
+  if (at.length !== 24) return false;
+  if (at.startsWith(lastDate) && lastDate !== '') return ISO_TIME.test(at.slice(10));
+  if (!ISO_MS.test(at)) return false;
+  lastDate = at.slice(0, 10);
+  return true;
+}
+
+const stamp = (v: V) => posInt(v.seq) && str(v.at) && isoMs(v.at) && str(v.prev);
 
 const precision = (x: unknown) =>
   object(x) &&
@@ -74,6 +86,7 @@ export const HAND_CHECKS: ReadonlyMap<string, Check> = new Map<string, Check>([
   ['restore', (v) => stamp(v) && posInt(v.of) && str(v.reason)],
   ['repair', (v) => stamp(v) && str(v.damage) && posInt(v.line) && count(v.cutBytes) && str(v.backup)],
   ['rules', (v) => stamp(v) && rules(v.rules) && spike(v.spike)],
+  ['slide', (v) => stamp(v) && trimmed(v.slide) && posInt(v.traverse)],
   ['close', stamp],
   ['finish', stamp],
   [
@@ -89,8 +102,11 @@ export const HAND_CHECKS: ReadonlyMap<string, Check> = new Map<string, Check>([
       text(v.core) &&
       text(v.slide) &&
       text(v.analyst) &&
+      // z.unknown() still wants the field there; its content is checked as a keymap.
+      'keymap' in v &&
       rules(v.rules) &&
-      spike(v.spike),
+      spike(v.spike) &&
+      optional((x) => object(x) && Array.isArray(x.overrides) && x.overrides.every(str))(v.fromCore),
   ],
 ]);
 

@@ -24,13 +24,16 @@ export function encodeLine(payload: EventPayload, stamp: Stamp, prev: string): {
  * The hash a line claims and the hash of its bytes, or null when the line does
  * not end with a hash field. Takes the line as decoded text: a line of valid
  * UTF-8 encodes back to exactly the bytes written, and invalid bytes (decoded
- * as U+FFFD) can only make the hash fail, never pass.
+ * as U+FFFD) can only make the hash fail, never pass. `bytes`, when given, are the line's
+ * own bytes, known to be valid UTF-8: hashing them spares encoding the text again.
  */
-export function lineHashes(line: string): { claimed: string; actual: string } | null {
+export function lineHashes(line: string, bytes?: Buffer): { claimed: string; actual: string } | null {
   const n = line.length;
   if (n < HASH_SUFFIX_BYTES + 2) return null;
   const start = n - HASH_SUFFIX_BYTES;
   if (!line.startsWith(HASH_PREFIX, start) || !line.endsWith('"}')) return null;
   // A claimed value that is not hex simply fails to match the computed one.
-  return { claimed: line.slice(start + HASH_PREFIX.length, n - 2), actual: sha256Hex(line.slice(0, start)) };
+  // The suffix is ASCII, so it is as many bytes as characters.
+  const head = bytes ? bytes.subarray(0, bytes.length - HASH_SUFFIX_BYTES) : line.slice(0, start);
+  return { claimed: line.slice(start + HASH_PREFIX.length, n - 2), actual: sha256Hex(head) };
 }

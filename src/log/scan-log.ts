@@ -38,9 +38,9 @@ export interface LogScan {
 
 type LineCheck = { ok: true; event: ParsedEvent; hash: string; keymap?: Keymap } | { ok: false; problem: Problem; message: string };
 
-function checkLine(line: string, lineNo: number, prevHash: string): LineCheck {
+function checkLine(line: string, lineNo: number, prevHash: string, bytes?: Buffer): LineCheck {
   const bad = (problem: Problem, message: string): LineCheck => ({ ok: false, problem, message: `line ${lineNo} ${message}` });
-  const hashes = lineHashes(line);
+  const hashes = lineHashes(line, bytes);
   if (!hashes && lineNo === 1 && !line.includes('"hash"')) {
     return bad('no-hash', 'is not an exine session line: this is not a session file, or its first line was replaced');
   }
@@ -71,7 +71,10 @@ const PHYSICAL: ReadonlySet<ScanProblem> = new Set(['no-hash', 'hash-mismatch', 
 export interface ScanLimits {
   /** Longest line read, in bytes: far above any line exine writes (a keymap of thousands of types in line 1). */
   readonly maxLineBytes: number;
-  /** Bytes decoded to text at once, cut at a line end: keeps every string far below V8's limit (about 512 MiB). */
+  /**
+   * Bytes decoded to text at once. The reader now decodes one line at a time (never more than
+   * maxLineBytes, far below V8's string limit), so this no longer changes anything.
+   */
   readonly blockBytes: number;
 }
 
@@ -88,15 +91,20 @@ function allNul(buf: Buffer, from: number): boolean {
  * Read a whole session file's bytes: validate every line and the chain, and
  * classify any damage. With `onEvent`, valid events are handed over one by one
  * and not kept, which spares the garbage collector on a long session. The bytes
- * are decoded block by block, each cut at a line end, so a file of any size
- * reads without one giant string.
+ * are decoded line by line, so a file of any size reads without one giant string
+ * and is held once.
  */
 export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keymap) => void, limits: ScanLimits = SCAN_LIMITS): LogScan {
   const events: ParsedEvent[] = [];
   let keymap: Keymap | null = null;
   let lastHash = '';
   const refs = new References();
-  const utf8 = isAscii(buf) || isUtf8(buf);
+  // Decode one line at a time rather than the whole file, so the file is held once (as bytes).
+  // A newline byte is never part of a multi-byte character, so the lines are the same either way.
+  // Pure ASCII decodes faster as latin1 (the same characters); valid UTF-8 is hashed from its bytes.
+  const ascii = isAscii(buf);
+  const utf8 = ascii || isUtf8(buf);
+  const encoding = ascii ? 'latin1' : 'utf8';
   let bytePos = 0;
   let lineNo = 0;
   let valid = 0;
@@ -127,51 +135,31 @@ export function scanLog(buf: Buffer, onEvent?: (event: ParsedEvent, keymap: Keym
       message: `line ${lineNo} is longer than ${mib(limits.maxLineBytes)}, far more than any line exine writes: this is not a session file exine can read`,
     });
   while (bytePos < buf.length) {
-    // The next block ends just after the last line end it holds; a block with no line end holds a line too long to read.
-    let end = Math.min(buf.length, bytePos + limits.blockBytes);
-    if (end < buf.length) {
-      const nl = buf.lastIndexOf(10, end - 1);
-      if (nl < bytePos) {
-        lineNo++;
-        return allNul(buf, bytePos) ? unfinished() : tooLong();
-      }
-      end = nl + 1;
+    lineNo++;
+    const nl = buf.indexOf(10, bytePos);
+    if (nl === -1) return buf.length - bytePos > limits.maxLineBytes && !allNul(buf, bytePos) ? tooLong() : unfinished();
+    if (nl - bytePos > limits.maxLineBytes) return tooLong();
+    const line = buf.toString(encoding, bytePos, nl);
+    let check = checkLine(line, lineNo, lastHash, utf8 ? buf.subarray(bytePos, nl) : undefined);
+    // Bytes that are not UTF-8 decode as U+FFFD and so fail the hash: say what they are.
+    if (!check.ok && check.problem === 'hash-mismatch' && !utf8 && line.includes('\uFFFD')) {
+      check = { ok: false, problem: 'hash-mismatch', message: `line ${lineNo} is not valid UTF-8: its bytes were changed after it was written` };
     }
-    const block = buf.subarray(bytePos, end);
-    // In pure ASCII a character is a byte: offsets need no counting.
-    const ascii = isAscii(block);
-    const text = block.toString('utf8');
-    let pos = 0;
-    while (pos < text.length) {
-      lineNo++;
-      const nl = text.indexOf('\n', pos);
-      // The rest of the file, with no line end: torn or padding, unless it is longer than any line.
-      if (nl === -1) return buf.length - bytePos > limits.maxLineBytes && !allNul(buf, bytePos) ? tooLong() : unfinished();
-      const line = text.slice(pos, nl);
-      const lineBytes = ascii ? line.length : Buffer.byteLength(line);
-      if (lineBytes > limits.maxLineBytes) return tooLong();
-      let check = checkLine(line, lineNo, lastHash);
-      // Bytes that are not UTF-8 decode as U+FFFD and so fail the hash: say what they are.
-      if (!check.ok && check.problem === 'hash-mismatch' && !utf8 && line.includes('\uFFFD')) {
-        check = { ok: false, problem: 'hash-mismatch', message: `line ${lineNo} is not valid UTF-8: its bytes were changed after it was written` };
-      }
-      if (!check.ok) {
-        const damage: Damage = { line: lineNo, offset: bytePos, problem: check.problem, message: check.message };
-        // Only physical damage of the very last line is cut off: a line whose own hash holds was
-        // written whole, so a wrong seq or chain there is an edit, not a crash.
-        const repairable = lineNo > 1 && allNul(buf, bytePos + lineBytes + 1) && PHYSICAL.has(check.problem);
-        return repairable ? result(damage, null) : result(null, damage);
-      }
-      const dangling = refs.check(check.event);
-      if (dangling) return result(null, { line: lineNo, offset: bytePos, problem: 'bad-reference', message: `line ${lineNo} ${dangling}` });
-      if (check.keymap) keymap = check.keymap;
-      valid++;
-      if (onEvent) onEvent(check.event, keymap as Keymap);
-      else events.push(check.event);
-      lastHash = check.hash;
-      pos = nl + 1;
-      bytePos += lineBytes + 1;
+    if (!check.ok) {
+      const damage: Damage = { line: lineNo, offset: bytePos, problem: check.problem, message: check.message };
+      // Only physical damage of the very last line is cut off: a line whose own hash holds was
+      // written whole, so a wrong seq or chain there is an edit, not a crash.
+      const repairable = lineNo > 1 && allNul(buf, nl + 1) && PHYSICAL.has(check.problem);
+      return repairable ? result(damage, null) : result(null, damage);
     }
+    const dangling = refs.check(check.event);
+    if (dangling) return result(null, { line: lineNo, offset: bytePos, problem: 'bad-reference', message: `line ${lineNo} ${dangling}` });
+    if (check.keymap) keymap = check.keymap;
+    valid++;
+    if (onEvent) onEvent(check.event, keymap as Keymap);
+    else events.push(check.event);
+    lastHash = check.hash;
+    bytePos = nl + 1;
   }
   return result(null, null);
 }

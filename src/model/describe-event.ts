@@ -30,6 +30,8 @@ export function describeEvent(event: SessionEvent): string {
       return `restore of void #${event.of}: ${event.reason}`;
     case 'repair':
       return `tail repaired (${event.cutBytes} bytes cut)`;
+    case 'slide':
+      return `slide ${event.slide} from traverse ${event.traverse}`;
     case 'close':
       return 'sitting closed';
     case 'finish':

@@ -29,6 +29,7 @@ export const EVENT_ROLES: { readonly [K in EventType]: EventRole } = {
   taxon: 'counting',
   rules: 'counting',
   repair: 'counting',
+  slide: 'counting',
   close: 'closing',
   finish: 'closing',
   void: 'correction',

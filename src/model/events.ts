@@ -10,6 +10,8 @@ import type { Spike } from '../stats/concentration.js';
  * 3: the keymap copy holds its groups with their roles and its key order, and a
  * type added while counting may be in a group of the keymap's own; a format-2
  * copy reads with the built-in groups, its "sum", and the key order of its object.
+ * 3 also added the slide event (a level counted on more than one slide) and the open
+ * line's fromCore; format 2 files read as format 3 on one slide.
  */
 export const FORMAT_VERSION = 3;
 
@@ -40,6 +42,8 @@ export interface OpenPayload extends LevelInfo {
   readonly rules: RuleSet;
   /** Exotic marker spike added to the sample, or null. */
   readonly spike: Spike | null;
+  /** Present when the level was created in a core folder from its core.json: the flags that overrode it. */
+  readonly fromCore?: { readonly overrides: readonly string[] } | undefined;
 }
 
 export interface GrainPayload {
@@ -140,6 +144,16 @@ export interface RestorePayload {
   readonly reason: string;
 }
 
+/**
+ * Counting goes on on another slide of the same level (the last one was used up).
+ * Traverse numbers go on across slides: `traverse` is the first one on this slide.
+ */
+export interface SlidePayload {
+  readonly type: 'slide';
+  readonly slide: string;
+  readonly traverse: number;
+}
+
 export interface ClosePayload {
   readonly type: 'close';
 }
@@ -162,6 +176,7 @@ export type EventPayload =
   | RepairPayload
   | VoidPayload
   | RestorePayload
+  | SlidePayload
   | ClosePayload
   | FinishPayload;
 

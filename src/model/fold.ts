@@ -32,6 +32,8 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     repairBackups: [],
     notes: [],
     addedTypes: [],
+    slide: open.slide,
+    slides: [{ slide: open.slide, seq: open.seq, at: open.at, traverse: 1 }],
     ignored: [],
   };
 }
@@ -240,6 +242,11 @@ function step(d: Draft, event: SessionEvent): void {
       return;
     case 'restore':
       restoreGrains(d, event);
+      return;
+    case 'slide':
+      d.slide = event.slide;
+      d.traverse = event.traverse;
+      d.slides = [...d.slides, { slide: event.slide, seq: event.seq, at: event.at, traverse: event.traverse }];
       return;
     case 'close':
       return;

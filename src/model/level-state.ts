@@ -49,8 +49,21 @@ export interface LevelState extends LevelCounts {
   readonly notes: readonly NoteRecord[];
   /** Types added while counting, in order (their keys are in `keymap`). */
   readonly addedTypes: readonly string[];
+  /** The slide being counted now, and every slide of the level in order, from the open line's on. */
+  readonly slide: string | null;
+  readonly slides: readonly SlideSpan[];
   /** Events the fold could not apply (an undo of a grain that is not counted): kept, reported. */
   readonly ignored: readonly number[];
+}
+
+/** A slide of the level: the grains from `seq` on (until the next slide) are on it. */
+export interface SlideSpan {
+  readonly slide: string | null;
+  /** seq of the event that started it (1 for the open line's slide). */
+  readonly seq: number;
+  readonly at: string;
+  /** The first traverse on it: numbers go on from slide to slide. */
+  readonly traverse: number;
 }
 
 export interface NoteRecord {

@@ -2,6 +2,7 @@ import { describeCell } from '../audit/evenness.js';
 import type { AuditRead } from '../audit/audit-source.js';
 import { describeCorrection, timelineBar, type LevelAudit, type TraverseRow } from '../audit/level-audit.js';
 import type { SessionEvent } from '../model/events.js';
+import { slideNames } from '../model/slides.js';
 import { fit, plural, right } from '../text/cells.js';
 import { formatDuration } from '../text/durations.js';
 import { perMinute } from '../text/numbers.js';
@@ -11,9 +12,10 @@ import { truncated, type Line } from './styled-line.js';
 export const clockTime = (iso: string | null) => (iso ? iso.slice(11, 19) : '–');
 
 /** A traverse's row of the table: start, time, grains, types, rate, new types, undos, voids, notes. */
-export function traverseLine(t: TraverseRow): string {
+export function traverseLine(t: TraverseRow, withSlide = false): string {
   const mark = t.voidedWhole ? ' VOID' : '';
-  return `${right(String(t.traverse), 3)} ${fit(clockTime(t.start), 8)} ${right(formatDuration(t.activeMs).slice(3), 5)} ${right(String(t.grains), 5)} ${right(String(t.types), 4)} ${right(perMinute(t.perMinute), 5)} ${right(String(t.newTypes.length), 3)} ${right(String(t.undos), 3)} ${right(String(t.voided), 3)} ${right(String(t.notes), 3)}${mark}`;
+  const slide = withSlide ? ` ${fit(t.slide ?? '–', 5)}` : '';
+  return `${right(String(t.traverse), 3)} ${fit(clockTime(t.start), 8)} ${right(formatDuration(t.activeMs).slice(3), 5)} ${right(String(t.grains), 5)} ${right(String(t.types), 4)} ${right(perMinute(t.perMinute), 5)} ${right(String(t.newTypes.length), 3)} ${right(String(t.undos), 3)} ${right(String(t.voided), 3)} ${right(String(t.notes), 3)}${slide}${mark}`;
 }
 
 /** What became of each grain, for the event list of a traverse: "undone", "VOIDED by #12", "double press?", or "". */
@@ -61,7 +63,7 @@ export function auditHeading(read: AuditRead): Line[] {
   const where = [h.site, h.core].filter(Boolean).join(' ');
   const integrity = verdict.intact ? 'file intact' : writing ? 'last line incomplete (being written?)' : 'FILE DAMAGED';
   return [
-    truncated(`Audit · ${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · slide ${h.slide ?? '–'}`, { bold: true, tone: 'accent' }),
+    truncated(`Audit · ${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · ${read.state.slides.length > 1 ? 'slides' : 'slide'} ${slideNames(read.state).join(', ')}`, { bold: true, tone: 'accent' }),
     truncated(
       `${integrity} · ${plural(audit.grains, 'grain')} · ${plural(audit.traverses.length, 'traverse')} · ${plural(audit.sittings.length, 'sitting')} · ${formatDuration(audit.countingMs)} counting · ${perMinute(audit.perMinute)}/min`,
       { tone: verdict.intact || writing ? undefined : 'error' },

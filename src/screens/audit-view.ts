@@ -41,14 +41,14 @@ export function auditRooms(height: number, traverses: number): { tableRoom: numb
 }
 
 /** The traverse table: its title and the rows that fit; "▶" marks the selection while the keys move it, "›" otherwise. */
-function traverseTable(traverses: readonly TraverseRow[], ui: AuditUi, room: number, width: number): Line[] {
+function traverseTable(traverses: readonly TraverseRow[], ui: AuditUi, room: number, width: number, withSlide: boolean): Line[] {
   const { shown, offset } = scrollWindow(traverses, ui.selected, room);
   return [
-    line(fit('   # start     time grain type  /min new und voi not', width), { bold: true }),
+    line(fit(`   # start     time grain type  /min new und voi not${withSlide ? ' slide' : ''}`, width), { bold: true }),
     ...shown.map((t, i) => {
       const here = offset + i === ui.selected;
       const mark = here ? (ui.focus === 'traverses' ? '▶' : '›') : ' ';
-      return truncated(`${mark}${traverseLine(t)}`, { inverse: here && ui.focus === 'traverses', bold: here, tone: t.voidedWhole ? 'zero' : undefined });
+      return truncated(`${mark}${traverseLine(t, withSlide)}`, { inverse: here && ui.focus === 'traverses', bold: here, tone: t.voidedWhole ? 'zero' : undefined });
     }),
   ];
 }
@@ -90,7 +90,7 @@ export function auditScreenView(read: AuditRead, ui: AuditUi, size: { columns: n
   return {
     width,
     height,
-    top: [...auditHeading(read), ...(ui.overview ? [] : traverseTable(traverses, ui, tableRoom, width))],
+    top: [...auditHeading(read), ...(ui.overview ? [] : traverseTable(traverses, ui, tableRoom, width, read.state.slides.length > 1))],
     body,
     prompt: promptLine(read, ui),
     keys: truncated(ui.asking ? (ui.message ?? 'Enter records the correction · Esc cancels') : '↑↓ select · Tab traverses/grains · v void · r restore · f flags · q quit', { tone: 'dim' }),

@@ -12,7 +12,7 @@ export function headingLines(state: LevelState, sittingMs: number, breakMinutes:
   const where = [h.site, h.core].filter(Boolean).join(' ');
   const depth = h.depth === null ? '' : ` · depth ${h.depth}`;
   return [
-    truncated(`${where ? `${where} · ` : ''}level ${h.level}${depth} · slide ${h.slide ?? '–'}`, { bold: true, tone: 'accent' }),
+    truncated(`${where ? `${where} · ` : ''}level ${h.level}${depth} · slide ${state.slide ?? '–'}`, { bold: true, tone: 'accent' }),
     {
       spans: [
         { text: `traverse ${state.traverse}`, bold: true },

@@ -38,6 +38,8 @@ export interface NewLevel {
   readonly keymap: Keymap;
   readonly rules: RuleSet;
   readonly spike: Spike | null;
+  /** Set when the level is made in a core folder from its core.json. */
+  readonly fromCore?: { readonly overrides: readonly string[] } | undefined;
 }
 
 /** Backups beside the session that no repair event names. */
@@ -85,6 +87,7 @@ export function createLevel(path: string, level: NewLevel, options: WriterOption
         keymap: level.keymap,
         rules: level.rules,
         spike: level.spike,
+        ...(level.fromCore ? { fromCore: level.fromCore } : {}),
       },
       lock,
       options,
@@ -110,6 +113,8 @@ export function createLevel(path: string, level: NewLevel, options: WriterOption
 export interface RuleChange {
   readonly rules?: RuleSet | undefined;
   readonly spike?: Spike | null | undefined;
+  /** Counting goes on on this slide: a slide event is recorded when it is not the current one. */
+  readonly slide?: string | undefined;
 }
 
 export interface ResumeOptions extends WriterOptions {
@@ -175,6 +180,12 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
       record({ type: 'rules', rules, spike });
       if (rulesChanged) notices.push(`stop rules changed from ${describeRules(before.rules)} to ${describeRules(rules)}`);
       else notices.push('marker spike data changed');
+    }
+    if (change.slide !== undefined && change.slide !== trial.slide) {
+      // Traverse numbers go on across slides; a traverse with no grain yet is the new slide's first.
+      const traverse = trial.stack?.traverse === trial.traverse ? trial.traverse + 1 : trial.traverse;
+      record({ type: 'slide', slide: change.slide, traverse });
+      notices.push(`counting on slide ${change.slide} from traverse ${traverse} (slide ${trial.slides.at(-2)?.slide ?? '–'} before)`);
     }
     const signal = rulesSignal(trial);
     if (signal) record(signal);

@@ -17,12 +17,13 @@ export function describeIssue(issue: core.$ZodIssue | undefined): string {
   const where = path ? `"${path}"` : 'the value';
   switch (issue.code) {
     case 'invalid_type':
-      return issue.input === undefined ? `${where} is missing` : `${where} must be ${article(issue.expected)} ${issue.expected}, not ${kindOf(issue.input)}`;
+      if (issue.input === undefined) return `${where} is missing`;
+      return issue.expected === 'int' ? `${where} must be a whole number, not ${kindOf(issue.input)}` : `${where} must be ${article(issue.expected)} ${issue.expected}, not ${kindOf(issue.input)}`;
     case 'too_small':
       if (issue.origin === 'number' || issue.origin === 'int') return `${where} must be ${issue.inclusive ? 'at least' : 'above'} ${issue.minimum}${issue.input === undefined ? '' : `, not ${issue.input}`}`;
       return `${where} must not be empty`;
     case 'too_big':
-      if (issue.origin === 'number' || issue.origin === 'int') return `${where} must be at most ${issue.maximum}${issue.input === undefined ? '' : `, not ${issue.input}`}`;
+      if (issue.origin === 'number' || issue.origin === 'int') return `${where} must be ${issue.inclusive ? 'at most' : 'below'} ${issue.maximum}${issue.input === undefined ? '' : `, not ${issue.input}`}`;
       return `${where} is too long (at most ${issue.maximum})`;
     default:
       return `${where}: ${issue.message}`;

@@ -61,7 +61,7 @@ describe('the read-only commands on the demo core', () => {
     const rows = parse(run.stdout, { columns: true }) as Record<string, string>[];
     expect(rows.map((r) => r.depth)).toEqual(['12', '36', '60', '84', '108']);
     expect(Number(rows[0]!.pollen_sum)).toBeGreaterThanOrEqual(500);
-    const taxa = Object.keys(rows[0]!).slice(11);
+    const taxa = Object.keys(rows[0]!).slice(12);
     expect(taxa.slice(0, 3)).toEqual(['Quercus', 'Betula', 'Alnus']);
     // The demo's spike data: concentration and influx of the pollen sum for each level.
     expect(rows[0]).toMatchObject({ conc_unit: 'grains/cm3' });

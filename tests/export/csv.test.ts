@@ -68,7 +68,7 @@ describe('wide export', () => {
     const a = wideTable([deep, top, mid]);
     const b = wideTable([mid, deep, top]);
     expect(a).toEqual(b);
-    expect(a.columns).toEqual(['level', 'depth', 'site', 'core', 'slide', 'pollen_sum', 'grains', 'markers', 'concentration', 'conc_unit', 'influx', 'Alnus', 'Betula', 'Corylus', 'Poaceae', 'Sphagnum', 'Lycopodium']);
+    expect(a.columns).toEqual(['level', 'depth', 'site', 'core', 'slide', 'grains_by_slide', 'pollen_sum', 'grains', 'markers', 'concentration', 'conc_unit', 'influx', 'Alnus', 'Betula', 'Corylus', 'Poaceae', 'Sphagnum', 'Lycopodium']);
     const rows = parse(toCsv(a.columns, a.rows), { columns: true }) as Record<string, string>[];
     expect(rows.map((r) => r.depth)).toEqual(['20', '60', '120']);
     expect(rows[0]).toMatchObject({ Poaceae: '2', Alnus: '1', Betula: '0', pollen_sum: '3' });

@@ -61,6 +61,11 @@ describe('taxon lists', () => {
     expect(parseTaxonList(csv, 'l.csv')).toMatchObject({ ok: true, entries: [{ taxon: 'HdV-18, Gelasinospora', group: 'NPP', role: 'outside' }, { taxon: 'Betula', group: 'trees', role: null }] });
   });
 
+  it('reads lists saved with semicolons or tabs', () => {
+    expect(parseTaxonList('taxon;group\nQuercus;trees\n"Rumex; acetosa";herbs\n', 'l.csv')).toMatchObject({ ok: true, entries: [{ taxon: 'Quercus', group: 'trees' }, { taxon: 'Rumex; acetosa', group: 'herbs' }] });
+    expect(parseTaxonList('Quercus\ttrees\nPlantago lanceolata\therbs\n', 'l.tsv')).toMatchObject({ ok: true, entries: [{ taxon: 'Quercus' }, { taxon: 'Plantago lanceolata', group: 'herbs' }] });
+  });
+
   it('names the line of a taxon without a group, listed twice, or with a wrong role', () => {
     expect(parseTaxonList('Quercus, trees\nBetula\n', 'l.txt')).toEqual({ ok: false, message: 'l.txt: line 2: Betula has no group (write "Betula, group")' });
     expect(parseTaxonList('Quercus, trees\nQuercus, trees\n', 'l.txt')).toEqual({ ok: false, message: 'l.txt: line 2: Quercus is listed twice (lines 1 and 2); keep one' });

@@ -36,6 +36,7 @@ const AFTER_CLOSE: { readonly [K in EventType]: readonly [EventPayload, boolean]
   taxon: [{ type: 'taxon', taxon: 'Quercus', group: 'trees', key: 'q' }, false],
   rules: [{ type: 'rules', rules: DEFAULT_RULES, spike: null }, false],
   repair: [{ type: 'repair', damage: 'a torn last line', line: 8, cutBytes: 12, backup: 'level.jsonl.cut-1' }, false],
+  slide: [{ type: 'slide', slide: 'B', traverse: 2 }, false],
   close: [{ type: 'close' }, true],
   finish: [{ type: 'finish' }, true],
   void: [{ type: 'void', grain: 3, traverse: null, reason: 'a spore, not Alnus' }, true],

@@ -6,6 +6,9 @@ import type { Keymap } from '../../keymap/keymap.js';
 import type { LevelInfo } from '../../model/events.js';
 import type { LevelState } from '../../model/level-state.js';
 import { createLevel, resumeLevel, type OpenedLevel } from '../../session/session-files.js';
+import type { Spike } from '../../stats/concentration.js';
+import { isCoreFolder } from '../../core/read-core.js';
+import { openInCore } from './count-in-core.js';
 import { drawLiveOnThisTerminal } from '../interactive-terminal.js';
 import { finiteNumber, parseFlags } from '../parse-flags.js';
 import { RULE_OPTIONS, rulesFromFlags, spikeFromFlags } from '../rule-flags.js';
@@ -61,7 +64,7 @@ export interface LevelDefaults {
   readonly analyst?: string | null;
 }
 
-/** Open or create the level for counting; the caller runs the screen. A keymap path in `flags` starts from `cwd`. */
+/** Open or create the level for counting; the caller runs the screen. A keymap path in `flags` starts from `cwd`. A folder with a core.json is a core: --depth picks the level. */
 export function openForCounting(
   path: string,
   flags: Record<string, string | undefined>,
@@ -69,41 +72,48 @@ export function openForCounting(
   defaults: LevelDefaults = {},
   cwd = process.cwd(),
 ): OpenedLevel {
+  if (isCoreFolder(path)) return openInCore(path, flags, check, defaults, cwd);
   const depth = finiteNumber('count', 'depth', flags.depth);
-  const given: Partial<LevelInfo> = {
-    level: flags.level,
-    depth,
-    site: flags.site,
-    core: flags.core,
-    slide: flags.slide,
-    analyst: flags.analyst,
-  };
-  if (existsSync(path)) {
-    const keymap = flags.keymap ? loadKeymap(flags.keymap, cwd).keymap : null;
-    // One read of the file: the checks run on the level as resume reads it, before it writes.
-    return resumeLevel(path, {
-      beforeWrite: (state) => {
-        checkAgainstRecorded(path, state, given, keymap);
-        const spike = spikeFromFlags(flags, state.spike);
-        const rules = rulesFromFlags(flags, state.keymap, state.rules, spike);
-        check();
-        return { rules, spike };
-      },
-    });
-  }
+  if (existsSync(path)) return resumeForCounting(path, flags, check, cwd);
   const { keymap } = loadKeymap(flags.keymap ?? defaults.keymap ?? DEFAULT_KEYMAP, cwd);
   const info: LevelInfo = {
-    level: given.level ?? basename(path, extname(path)),
+    level: flags.level ?? basename(path, extname(path)),
     depth: depth ?? null,
-    site: given.site ?? null,
-    core: given.core ?? null,
-    slide: given.slide ?? null,
-    analyst: given.analyst ?? defaults.analyst ?? null,
+    site: flags.site ?? null,
+    core: flags.core ?? null,
+    slide: flags.slide ?? null,
+    analyst: flags.analyst ?? defaults.analyst ?? null,
   };
   const spike = spikeFromFlags(flags, null);
   const rules = rulesFromFlags(flags, keymap, null, spike) as NonNullable<ReturnType<typeof rulesFromFlags>>;
   check();
   return createLevel(path, { info, keymap, rules, spike });
+}
+
+/**
+ * Resume a level. Its details must match the flags, except the slide: another
+ * slide is recorded as a slide event. `spikeBase` stands in for a level that has
+ * no spike data yet (a core's marker batch).
+ */
+export function resumeForCounting(path: string, flags: Record<string, string | undefined>, check: () => void, cwd: string, spikeBase: Spike | null = null): OpenedLevel {
+  const given: Partial<LevelInfo> = {
+    level: flags.level,
+    depth: finiteNumber('count', 'depth', flags.depth),
+    site: flags.site,
+    core: flags.core,
+    analyst: flags.analyst,
+  };
+  const keymap = flags.keymap ? loadKeymap(flags.keymap, cwd).keymap : null;
+  // One read of the file: the checks run on the level as resume reads it, before it writes.
+  return resumeLevel(path, {
+    beforeWrite: (state) => {
+      checkAgainstRecorded(path, state, given, keymap);
+      const spike = spikeFromFlags(flags, state.spike ?? spikeBase);
+      const rules = rulesFromFlags(flags, state.keymap, state.rules, spike);
+      check();
+      return { rules, spike: spike === spikeBase ? state.spike : spike, slide: flags.slide };
+    },
+  });
 }
 
 export interface ScreenOptions {

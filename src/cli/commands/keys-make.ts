@@ -71,7 +71,8 @@ export async function keysBuild(mode: 'new' | 'edit', args: string[], io: Io): P
   const { runKeymapBuilder } = await import('../../screens/run-keymap-builder.js');
   const end = await runKeymapBuilder(start, file);
   if (!end.changed || end.keymap.order.length === 0) {
-    io.stdout.write(`${file}: ${mode === 'new' ? 'no keys were made; nothing written' : 'unchanged'}\n`);
+    const why = end.keymap.order.length === 0 ? (mode === 'new' ? 'no keys were made' : 'every key was freed, and a keymap needs one') : 'unchanged';
+    io.stdout.write(`${file}: ${why}; nothing written\n`);
     return 0;
   }
   // A new file never replaces one that appeared meanwhile (unless --force); an edit replaces its own file.

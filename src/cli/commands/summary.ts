@@ -30,9 +30,10 @@ function needText(r: LevelSummary['rules'][number]): string {
 function textReport(s: LevelSummary): string[] {
   const where = [s.site, s.core].filter(Boolean).join(' ');
   const lines = [
-    `${where ? `${where} · ` : ''}level ${s.level}${s.depth === null ? '' : ` (depth ${s.depth})`} · slide ${s.slide ?? '–'}${s.analyst ? ` · ${s.analyst}` : ''}`,
+    `${where ? `${where} · ` : ''}level ${s.level}${s.depth === null ? '' : ` (depth ${s.depth})`} · ${s.slides.length > 1 ? 'slides' : 'slide'} ${s.slides.map((c) => c.slide ?? '–').join(', ')}${s.analyst ? ` · ${s.analyst}` : ''}`,
     s.finishedAt ? `finished ${s.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
     `pollen sum ${s.pollenSum} · ${plural(s.grains, 'grain')} · ${plural(s.types, 'type')} in the sum · ${plural(s.traverses, 'traverse')} · ${plural(s.sittings, 'sitting')}${s.voided ? ` · ${plural(s.voided, 'grain')} voided in the audit` : ''}`,
+    ...(s.slides.length > 1 ? [`by slide: ${s.slides.map((c) => `${c.slide ?? '–'} ${plural(c.grains, 'grain')} (sum ${c.pollenSum}, from traverse ${c.firstTraverse})`).join(' · ')}`] : []),
     `groups: ${s.groupOrder.filter((g) => (s.groups[g] ?? 0) > 0 || s.sumGroups.includes(g))
       .map((g) => `${g} ${s.groups[g]}${s.sumGroups.includes(g) ? '' : '*'}`)
       .join(' · ')}`,
