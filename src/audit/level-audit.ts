@@ -1,4 +1,5 @@
-import { inPollenSum } from '../keymap/keymap.js';
+import { isTypeRole, type Group } from '../keymap/groups.js';
+import { inPollenSum, roleOf } from '../keymap/keymap.js';
 import type { SessionEvent } from '../model/events.js';
 import type { LevelState } from '../model/level-state.js';
 import { slideOfTraverse } from '../model/slides.js';
@@ -24,15 +25,25 @@ export interface TraverseRow {
   readonly slide: string | null;
   /** Time of its first event; null for a traverse with no event yet. */
   readonly start: string | null;
+  /** Start of the sitting it began in (its start shows a date when that is another day). */
+  readonly sittingStart: string | null;
+  /** No grain was ever recorded in it; `takenBack` is the undo that took the change to it back, if one did. */
+  readonly empty: boolean;
+  readonly takenBack: number | null;
   /** Time spent in it: intervals between its events, pauses left out. */
   readonly activeMs: number;
   /** Grains that count now, and grains recorded (undone and voided ones included). */
   readonly grains: number;
   readonly recorded: number;
+  /** Pollen and spore types that count in it (the screen's rule: no markers, indeterminables or other). */
   readonly types: number;
   readonly perMinute: number | null;
-  /** Types whose first grain that counts is in this traverse. */
+  /** Types whose first grain that counts is in this traverse (the same rule). */
   readonly newTypes: readonly string[];
+  /** Markers, indeterminables and other taxa first counted here: listed apart, they are not discoveries. */
+  readonly newOthers: readonly string[];
+  /** cf. grains that count in it, by taxon. */
+  readonly cf: readonly (readonly [string, number])[];
   readonly undos: number;
   readonly voided: number;
   /** The standing void of this whole traverse, if any. */
@@ -121,12 +132,23 @@ function pollenSumTable(countsBy: ReadonlyMap<number, ReadonlyMap<string, number
 const MAX_EMPTY_TRAVERSES = 10_000;
 
 function traverseRows(walk: SittingWalk, countsBy: ReadonlyMap<number, ReadonlyMap<string, number>>, grains: GrainIndex, state: LevelState, events: readonly SessionEvent[]): TraverseRow[] {
+  const groupOf = new Map<string, Group>(Object.values(state.keymap.keys).map((b) => [b.taxon, b.group]));
+  const isType = (taxon: string) => isTypeRole(roleOf(state.keymap, groupOf.get(taxon) ?? 'other'));
   const newTypesIn = new Map<number, string[]>();
+  const newOthersIn = new Map<number, string[]>();
   for (const [taxon, seq] of Object.entries(state.firstSeen)) {
     const t = grains.counted.get(seq)?.traverse ?? 0;
-    const list = newTypesIn.get(t);
+    const into = isType(taxon) ? newTypesIn : newOthersIn;
+    const list = into.get(t);
     if (list) list.push(taxon);
-    else newTypesIn.set(t, [taxon]);
+    else into.set(t, [taxon]);
+  }
+  const cfIn = new Map<number, Map<string, number>>();
+  for (let g = state.stack; g; g = g.below) {
+    if (!g.cf) continue;
+    let m = cfIn.get(g.traverse);
+    if (!m) cfIn.set(g.traverse, (m = new Map()));
+    m.set(g.taxon, (m.get(g.taxon) ?? 0) + 1);
   }
   const voidedIn = new Map<number, number>();
   for (const taken of Object.values(state.voids)) for (const g of taken) voidedIn.set(g.traverse, (voidedIn.get(g.traverse) ?? 0) + 1);
@@ -145,16 +167,22 @@ function traverseRows(walk: SittingWalk, countsBy: ReadonlyMap<number, ReadonlyM
       const log = walk.traverses.get(t);
       const list = log?.events ?? [];
       const ms = log?.activeMs ?? 0;
+      const recorded = list.filter((e) => e.type === 'grain').length;
       return {
         traverse: t,
         slide: slideOfTraverse(state.slides, t),
         start: log?.firstAt ?? null,
+        sittingStart: log?.sittingStart ?? null,
+        empty: recorded === 0,
+        takenBack: recorded === 0 ? (log?.takenBack ?? null) : null,
         activeMs: ms,
         grains: counted,
-        recorded: list.filter((e) => e.type === 'grain').length,
-        types: byTaxon.length,
+        recorded,
+        types: byTaxon.filter(([taxon]) => isType(taxon)).length,
         perMinute: rate(counted, ms),
         newTypes: newTypesIn.get(t) ?? [],
+        newOthers: newOthersIn.get(t) ?? [],
+        cf: [...(cfIn.get(t) ?? new Map<string, number>()).entries()].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0])),
         undos: log?.undos ?? 0,
         voided: voidedIn.get(t) ?? 0,
         voidedWhole: standingTraverseVoid.get(t) ?? null,

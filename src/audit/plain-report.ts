@@ -4,10 +4,12 @@ import type { LevelState } from '../model/level-state.js';
 import { slideCounts, slideNames } from '../model/slides.js';
 import { fit, plural, right } from '../text/cells.js';
 import { perMinute } from '../text/numbers.js';
+import { localClock, localDateTime } from '../text/local-time.js';
 import { describeCell, POOLED } from './evenness.js';
-import { describeCorrection, timelineBar, type LevelAudit } from './level-audit.js';
+import { describeCorrection, timelineBar, type LevelAudit, type TraverseRow } from './level-audit.js';
 
-const day = (iso: string | null) => (iso ? iso.replace('T', ' ').slice(0, 16) : '–');
+/** Local date and time with the zone: the file keeps UTC, the analyst reads the clock on the wall. */
+const day = (iso: string | null) => (iso ? localDateTime(iso) : '–');
 
 /** The evenness test in words, a few lines. */
 export function evennessLines(audit: LevelAudit): string[] {
@@ -25,6 +27,37 @@ export function evennessLines(audit: LevelAudit): string[] {
   return lines;
 }
 
+/** The new types of a traverse, other groups apart; or that it is empty. */
+function traverseNews(t: TraverseRow): string {
+  if (t.empty) return t.takenBack ? `empty: the change to it was taken back (#${t.takenBack})` : 'empty: no grain recorded';
+  return [t.newTypes.join(', '), t.newOthers.length ? `other groups: ${t.newOthers.join(', ')}` : ''].filter(Boolean).join(' · ');
+}
+
+/** The cf. grains that count, by taxon, with the traverses they are in. */
+function cfLines(audit: LevelAudit): string[] {
+  const byTaxon = new Map<string, { n: number; traverses: number[] }>();
+  for (const t of audit.traverses) {
+    for (const [taxon, n] of t.cf) {
+      const entry = byTaxon.get(taxon) ?? { n: 0, traverses: [] };
+      entry.n += n;
+      entry.traverses.push(t.traverse);
+      byTaxon.set(taxon, entry);
+    }
+  }
+  const total = [...byTaxon.values()].reduce((a, e) => a + e.n, 0);
+  if (total === 0) return ['cf. grains: none'];
+  return [
+    `cf. grains (${total}; each counts with its taxon)`,
+    ...[...byTaxon.entries()].map(([taxon, e]) => `  ${taxon}: ${e.n} cf. (traverse${e.traverses.length === 1 ? '' : 's'} ${e.traverses.join(', ')})`),
+  ];
+}
+
+/** A finished level counted on: when, and why. */
+function reopenLines(audit: LevelAudit): string[] {
+  const reopens = audit.traverses.flatMap((t) => t.events).filter((e) => e.type === 'reopen');
+  return reopens.length ? [`Reopened after finishing (${reopens.length})`, ...reopens.map((e) => `  #${e.seq} ${day(e.at)}: "${e.reason}"`), ''] : [];
+}
+
 /** Grains per slide, when the level was counted on more than one. */
 function slideLines(state: LevelState): string[] {
   if (state.slides.length < 2) return [];
@@ -40,7 +73,7 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
   const lines: string[] = [
     `Audit of ${name}`,
     `${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · ${state.slides.length > 1 ? 'slides' : 'slide'} ${slideNames(state).join(', ')} · analyst ${h.analyst ?? '–'}`,
-    `keymap "${state.keymap.name}" · counted ${day(audit.firstAt)} to ${day(audit.lastAt)} UTC · ${state.finishedAt ? `finished ${day(state.finishedAt)}` : 'not finished'}`,
+    `keymap "${state.keymap.name}" · counted ${day(audit.firstAt)} to ${day(audit.lastAt)} · ${state.finishedAt ? `finished ${day(state.finishedAt)}` : 'not finished'}`,
     `integrity: ${verdict.intact ? 'intact' : 'DAMAGED'}: ${verdict.summary}`,
     ...verdict.warnings.map((w) => `  warning: ${w}`),
     '',
@@ -48,17 +81,20 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
     '',
     'Sittings',
     ...audit.sittings.flatMap((s) => [
-      `  ${right(String(s.sitting), 2)}  ${day(s.start)} – ${day(s.end).slice(11)}  counting ${formatDuration(s.countingMs)}  ${plural(s.grains, 'grain')} recorded${s.pauses.length ? `  pauses: ${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min after #${p.afterSeq}`).join(', ')}` : ''}${s.closedCleanly ? '' : '  (not closed cleanly)'}`,
-      `      ${s.start.slice(11, 16)} ${timelineBar(s, 48)} ${s.end.slice(11, 16)}`,
+      `  ${right(String(s.sitting), 2)}  ${day(s.start)} – ${localClock(s.end, false)}  counting ${formatDuration(s.countingMs)}  ${plural(s.grains, 'grain')} recorded${s.pauses.length ? `  pauses: ${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min after #${p.afterSeq}`).join(', ')}` : ''}${s.closedCleanly ? '' : '  (not closed cleanly)'}`,
+      `      ${localClock(s.start, false)} ${timelineBar(s, 48)} ${localClock(s.end, false)}`,
     ]),
     ...slideLines(state),
     '',
     'Traverses',
-    `  ${right('#', 3)}  ${several ? `${fit('slide', 6)}  ` : ''}${fit('start (UTC)', 16)}  ${right('time', 8)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new', 3)}  ${right('undo', 4)}  ${right('void', 4)}  ${right('notes', 5)}  new types`,
+    `  ${right('#', 3)}  ${several ? `${fit('slide', 6)}  ` : ''}${fit('start', 22)}  ${right('time', 8)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new', 3)}  ${right('undo', 4)}  ${right('void', 4)}  ${right('notes', 5)}  new types`,
     ...audit.traverses.map(
       (t) =>
-        `  ${right(String(t.traverse), 3)}  ${several ? `${fit(t.slide ?? '–', 6)}  ` : ''}${fit(day(t.start), 16)}  ${right(formatDuration(t.activeMs), 8)}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 3)}  ${right(String(t.undos), 4)}  ${right(String(t.voided), 4)}  ${right(String(t.notes), 5)}  ${t.newTypes.join(', ')}${t.voidedWhole ? `  VOIDED: ${t.voidedWhole.reason}` : ''}`,
+        `  ${right(String(t.traverse), 3)}  ${several ? `${fit(t.slide ?? '–', 6)}  ` : ''}${fit(day(t.start), 22)}  ${right(formatDuration(t.activeMs), 8)}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 3)}  ${right(String(t.undos), 4)}  ${right(String(t.voided), 4)}  ${right(String(t.notes), 5)}  ${traverseNews(t)}${t.voidedWhole ? `  VOIDED: ${t.voidedWhole.reason}` : ''}`,
     ),
+    '  (types: pollen and spore types, as the counting screen counts them; markers, indeterminables and other taxa are listed apart)',
+    '',
+    ...cfLines(audit),
     '',
     ...evennessLines(audit),
     '',
@@ -69,6 +105,7 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
     ...state.notes.map((n) => `  #${n.seq} on ${n.grain === null ? 'the level' : `grain #${n.grain} ${n.taxon ?? '?'}, traverse ${n.traverse ?? '?'}`}${n.stage ? `, stage ${n.stage.x}, ${n.stage.y}` : ''}: ${n.text}`),
     ...(state.addedTypes.length ? [`Types added while counting: ${state.addedTypes.map((t) => `${t} (key ${Object.entries(state.keymap.keys).find(([, b]) => b.taxon === t)?.[0] ?? '?'})`).join(', ')}`] : []),
     '',
+    ...reopenLines(audit),
     audit.corrections.length ? `Corrections (${audit.corrections.length})` : 'Corrections: none',
     ...audit.corrections.map((c) => `  #${c.seq} ${day(c.at)}  ${describeCorrection(c)}`),
   ];

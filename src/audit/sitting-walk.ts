@@ -43,6 +43,10 @@ export interface TraverseLog {
   /** Its events in order: grains, undos, notes, types, and the voids aimed at it. */
   readonly events: SessionEvent[];
   firstAt: string | null;
+  /** Start of the sitting the traverse began in: a traverse begun on another day shows its date. */
+  sittingStart: string | null;
+  /** seq of the undo that took the change to this traverse back, while it holds no grain. */
+  takenBack: number | null;
   /** Intervals between its events, pauses left out. */
   activeMs: number;
   undos: number;
@@ -96,15 +100,21 @@ class Walker {
 
   log(t: number): TraverseLog {
     let log = this.traverses.get(t);
-    if (!log) this.traverses.set(t, (log = { events: [], firstAt: null, activeMs: 0, undos: 0, notes: 0 }));
+    if (!log) this.traverses.set(t, (log = { events: [], firstAt: null, sittingStart: null, takenBack: null, activeMs: 0, undos: 0, notes: 0 }));
     return log;
   }
 
   into(t: number, e: SessionEvent): TraverseLog {
     const log = this.log(t);
     log.events.push(e);
-    log.firstAt ??= e.at;
+    this.started(log, e.at);
     return log;
+  }
+
+  started(log: TraverseLog, at: string): void {
+    if (log.firstAt !== null) return;
+    log.firstAt = at;
+    log.sittingStart = this.sitting?.start ?? null;
   }
 
   closeSitting(): void {
@@ -183,8 +193,19 @@ class Walker {
         break;
       case 'traverse':
         this.current = e.traverse;
-        this.log(this.current).firstAt ??= e.at;
+        this.log(this.current).takenBack = null;
+        this.started(this.log(this.current), e.at);
         this.previousGrain = null;
+        break;
+      case 'traverse-undo': {
+        const left = this.into(this.current, e);
+        if (!left.events.some((x) => x.type === 'grain')) left.takenBack = e.seq;
+        this.current = e.traverse;
+        this.previousGrain = null;
+        break;
+      }
+      case 'reopen':
+        this.into(this.current, e);
         break;
       default:
         break;

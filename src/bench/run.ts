@@ -1,6 +1,7 @@
 // npm run bench: speed measured as ratios against baselines taken in the same run, on the same disk.
 // `npm run bench -- --only tally,resume` runs the named sections alone; --suite adds the test-suite timing.
 import { cpus } from 'node:os';
+import { benchCoreView } from './core-view.js';
 import { benchCraftedInput } from './crafted-input.js';
 import { benchFaults } from './fault-bench.js';
 import { benchDamage } from './fault-damage.js';
@@ -32,6 +33,7 @@ const SECTIONS: Section[] = [
   { name: 'start-up', run: benchStartUp },
   { name: 'audit-scale', run: benchAuditScale },
   { name: 'key-frame', run: () => benchKeyFrame() },
+  { name: 'core-view', run: () => benchCoreView() },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];
 

@@ -29,14 +29,21 @@ Options
   --keymap PATH|NAME  keymap for a new level (default: the keymap preference,
                       else temperate-lowland; bundled: temperate-lowland, keypad)
   --level L           level label (default: the file name)
-  --depth D           depth of the level in the core (a number, e.g. cm)
+  --depth D           depth of the level in the core (a number, e.g. cm);
+                      with a core folder for FILE, the level to count
+                      (exine count DIR --depth D: see exine core --help);
+                      a depth below 0 is written --depth=-3 and needs
+  --allow-negative-depth  (a core measured from a datum above the sediment)
   --site S            site name
   --core C            core label
-  --slide S           slide label
+  --slide S           slide label; on resume another slide is recorded
+                      and counting goes on on it (traverse numbers go on)
   --analyst A         who counts (default: the analyst preference)
   --quiet             no terminal bells (preference: bell)
   --rare N            list types with at most N grains as rare (preference: rare)
   --break MIN|off     remind to rest the eyes after MIN minutes (preference: break)
+  --reopen "REASON"   count on in a finished level (recorded with the reason);
+                      without it a finished level opens read-only
   -h, --help          this help
 
 Stop rules (recorded in FILE; on resume a flag changes only its own rule,
@@ -63,8 +70,9 @@ Exotic marker spike (for concentration; recorded in FILE)
   --accumulation-rate R   sediment accumulation in cm/yr, for influx
 
 Keys
-  taxon keys count one grain each; Backspace undoes the last grain; Tab starts
-  the next traverse; Enter writes a note on the last grain ("@12.4,88.1 cf.
+  taxon keys count one grain each; Backspace undoes the last grain (right after
+  a Tab: the traverse change); Tab starts the next traverse; ' then a taxon key
+  counts a cf. grain (probable, not certain); Enter writes a note on the last grain ("@12.4,88.1 cf.
   Tilia" records the stage position); = adds a type that is not in the keymap
   ("Ilex aquifolium, shrubs") and counts it; ? shows the keymap (the keymap may
   move these); Ctrl-F then y marks the level finished and quits; Ctrl-C quits
@@ -122,14 +130,24 @@ Options
   -h, --help   this help`,
   export: `Usage
   exine export FILE… [--format long|wide|notes] [--out PATH] [--force]
+  exine export DIR [--values counts|percent] [--format wide|long|notes|taxa] …
 
 Writes levels as CSV (RFC 4180, UTF-8, header row). long: one row per level
 and taxon, with percentages, intervals and marker concentration. wide: one row
 per level, one count column per taxon, levels in depth order. notes: one row
 per note, with the grain's taxon, traverse and stage position.
 
+A core folder DIR exports as the core's matrix (wide, the default there): each
+level's status, slides, markers, summary groups and taxa, synonyms merged; the
+taxa and their groups go to NAME.taxa.csv beside --out NAME.csv (--format taxa
+prints them). It refuses a level of another core, a level not finished or not
+meeting its rules, and the same session twice, naming the files.
+
 Options
-  --format F  long (default), wide or notes
+  --format F  long (default for files), wide, notes, or taxa (a core)
+  --values V  counts (default) or percent of the pollen sum (a core's matrix)
+  --include-unfinished  a core: export levels not finished or not met too
+  --mixed-cores         export levels of other cores too
   --out PATH  write to PATH (atomically) instead of standard output
   --force     replace PATH if it exists
   -h, --help  this help
@@ -180,7 +198,15 @@ Options of init
   --rule-mode, --min-sum   default stop rules, as for exine count
   --tablets T --per-tablet S [--per-tablet-sd SD]   the marker batch
                       (volume or mass is per level: give it to exine count)
-  -h, --help          this help`,
+  -h, --help          this help
+
+exine core DIR shows every level, planned ones too: status, pollen sum and
+grains still needed, squared-chord distance to the level above, time,
+integrity, and strips of the commonest taxa. ? marks a level unlike both its
+neighbours, ◂ the planned depth to count next. ↑↓ select, Enter counts the
+level (Ctrl-C there comes back), q quits. The view follows files that change.
+  --plain             the same as text        --json   everything, for a script
+  --quiet             no bells in the counting screen`,
   keys: `Usage
   exine keys PATH|NAME
   exine keys PATH|NAME --card card.svg|card.txt [--paper a4|letter] [--force]

@@ -10,6 +10,8 @@ export function parseFlags<O extends Options>(command: string, args: string[], o
   try {
     parsed = parseArgs({ args, options, allowPositionals: true, strict: true });
   } catch (error) {
+    const negative = negativeValue(args, (error as Error).message);
+    if (negative) throw new UsageError(`exine ${command}: ${negative}`);
     // node's messages run over several lines; the first says what is wrong.
     const message = ((error as Error).message.split('\n')[0] ?? '')
       .replace(/\. To specify a positional argument.*$/s, '')
@@ -24,6 +26,20 @@ export function parseFlags<O extends Options>(command: string, args: string[], o
     }
   }
   return parsed;
+}
+
+// Flags whose value may be below zero; every other number flag takes only positive values.
+const MAY_BE_NEGATIVE = new Set(['depth']);
+
+/** One honest message for "--flag -3", which node reads as two flags. */
+function negativeValue(args: readonly string[], message: string): string | null {
+  const flag = /'--([\w-]+)/.exec(message)?.[1];
+  if (!flag || !/ambiguous/.test(message)) return null;
+  const value = args[args.indexOf(`--${flag}`) + 1];
+  if (value === undefined || !/^-\d/.test(value)) return null;
+  return MAY_BE_NEGATIVE.has(flag)
+    ? `a negative --${flag} is written --${flag}=${value} (with --allow-negative-depth for a depth above the datum)`
+    : `--${flag} cannot be negative ("${value}")`;
 }
 
 /** `hint` is added to the message, e.g. " (or off to drop the rule)". */

@@ -139,9 +139,8 @@ export function parseCoreFile(text: string, source: string): CoreResult {
   for (const field of ['site', 'core'] as const) {
     if (hasUnseen(raw[field])) return fail(lineAt(body, root, [field]), `"${field}" has a control or invisible character ("${visible(raw[field])}"); type it plainly`);
   }
-  // core.json holds a copy as exine writes it (groups as a list, the key order kept): read it as a
-  // session file's copy is read; `core init` checked the keymap file strictly when it made the copy.
-  const keymap = checkKeymapValue(raw.keymap, 'in core.json');
+  // core.json holds a copy as exine writes it (groups as a list), checked as strictly as a person's file.
+  const keymap = checkKeymapValue(raw.keymap, 'in core.json', true);
   if (!keymap.ok) return fail(lineAt(body, root, ['keymap']), keymap.message);
 
   const r = raw.rules;

@@ -1,3 +1,5 @@
+import { checkKeymapValue } from '../keymap/parse-keymap.js';
+import type { Keymap } from '../keymap/keymap.js';
 import type { LevelState } from '../model/level-state.js';
 import { describeRules, sameRules } from '../rules/rule-set.js';
 import type { CoreConfig } from './core-file.js';
@@ -31,7 +33,10 @@ export function judgeLevel(config: CoreConfig, state: LevelState): Pick<CoreLeve
   const made = h.fromCore ?? null;
   const differences: string[] = [];
   if (h.site !== config.site || h.core !== config.core) differences.push(`core ${[h.site, h.core].filter(Boolean).join(' ') || '(none recorded)'}`);
-  if (JSON.stringify(h.keymap) !== JSON.stringify(config.keymap)) {
+  // Compared as read, defaults filled in: a level recorded before an action existed (cf.) is the same keymap.
+  const recorded = checkKeymapValue(h.keymap, 'recorded in line 1');
+  const asRead = (k: Keymap) => JSON.stringify(k);
+  if ((recorded.ok ? asRead(recorded.keymap) : JSON.stringify(h.keymap)) !== asRead(config.keymap)) {
     if (!made?.overrides.includes('keymap')) differences.push(`own keymap "${h.keymap.name}"`);
   }
   if (!made && !sameRules(h.rules, config.rules)) differences.push(`own rules: ${describeRules(h.rules)}`);

@@ -2,6 +2,7 @@
 // The site, the core and every count are made up.
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { CORE_FILE, CORE_FORMAT, coreFileText, type CoreConfig } from '../core/core-file.js';
 import { loadKeymap } from '../keymap/load-keymap.js';
 import { bindingInSum, type Keymap } from '../keymap/keymap.js';
 import { encodeLine } from '../log/line-codec.js';
@@ -27,6 +28,10 @@ interface DemoLevel {
   readonly auditTrail?: boolean;
   /** A type the keymap does not have, added while counting at this pollen sum. */
   readonly added?: { readonly taxon: string; readonly group: 'trees' | 'shrubs' | 'herbs'; readonly atSum: number };
+  /** The slide used up at the break between sittings: counting goes on on this one. */
+  readonly secondSlide?: string;
+  /** The flags that overrode core.json when the level was made (its own rules). */
+  readonly overrides?: readonly string[];
 }
 
 // An invented marker batch; a real one comes with its own figures, entered by the analyst.
@@ -38,15 +43,20 @@ const LEVELS: readonly DemoLevel[] = [
     shares: { Quercus: 9, Betula: 6, Alnus: 11, Pinus: 4, Corylus: 8, Calluna: 9, Poaceae: 24, Cyperaceae: 6, 'Plantago lanceolata': 8, Rumex: 4, Asteraceae: 3, Artemisia: 1, Pteridium: 5, Sphagnum: 3, 'Lycopodium (exotic marker)': 7, Indeterminable: 3, Charcoal: 4 } },
   { file: 'km1-036cm.jsonl', depth: 36, sum: 505, finished: true, start: '2026-10-06T09:05:00.000Z', auditTrail: true,
     shares: { Quercus: 18, Betula: 5, Alnus: 17, Ulmus: 2, Tilia: 3, Fraxinus: 3, Fagus: 1, Corylus: 16, Salix: 2, Calluna: 4, Hedera: 1, Poaceae: 12, Cyperaceae: 4, 'Plantago lanceolata': 3, Filipendula: 2, Pteridium: 3, Polypodium: 2, Nymphaea: 1, 'Lycopodium (exotic marker)': 8, 'Indet. corroded': 1.5, 'Indet. crumpled': 1, 'Indet. broken': 0.5 } },
-  { file: 'km1-060cm.jsonl', depth: 60, sum: 520, finished: true, start: '2026-10-07T08:30:00.000Z',
+  // A sparse level: its first slide was used up at the break, and the count went on on a second.
+  { file: 'km1-060cm.jsonl', depth: 60, sum: 520, finished: true, start: '2026-10-07T08:30:00.000Z', secondSlide: 'KM1-060-B',
     shares: { Quercus: 22, Betula: 4, Alnus: 16, Ulmus: 7, Tilia: 6, Fraxinus: 3, Pinus: 3, Corylus: 22, Salix: 1, Hedera: 1, Poaceae: 6, Cyperaceae: 3, Filipendula: 1, Ranunculaceae: 1, Polypodium: 3, Nymphaea: 1, 'Lycopodium (exotic marker)': 9, Indeterminable: 2 } },
   // The half-counted level is counted to precision and coverage goals instead of a fixed sum.
   { file: 'km1-084cm.jsonl', depth: 84, sum: 236, finished: false, start: '2026-10-08T13:10:00.000Z',
     rules: { ...NO_RULES, precision: { halfWidth: 4, share: 10, taxa: null }, coverage: 0.98, markers: 40, minSum: 300 },
+    overrides: ['precision', 'precision-share', 'coverage', 'markers', 'min-sum'],
     added: { taxon: 'Ilex aquifolium', group: 'shrubs', atSum: 150 },
     shares: { Quercus: 12, Betula: 12, Alnus: 6, Ulmus: 9, Pinus: 14, Corylus: 26, Salix: 3, Poaceae: 6, Cyperaceae: 3, Artemisia: 1, Filipendula: 2, Tilia: 0.6, Fraxinus: 0.4, Hedera: 0.3, Rumex: 0.4, Ranunculaceae: 0.3, Polypodium: 2, Pteridium: 1, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
   { file: 'km1-108cm.jsonl', depth: 108, sum: 501, finished: true, start: '2026-10-09T08:50:00.000Z', uneven: { taxon: 'Pinus', traverses: [1, 12], factor: 4 },
     shares: { Betula: 38, Pinus: 24, Salix: 6, Corylus: 3, Poaceae: 12, Cyperaceae: 8, Artemisia: 5, Amaranthaceae: 2, Rumex: 1, Sphagnum: 2, 'Lycopodium (exotic marker)': 12, 'Indet. corroded': 2, 'Indet. degraded': 1, 'Indet. concealed': 1 } },
+  // Last in the list so the levels above keep their seeds. A slide mislabelled at the bench: a birch-pine assemblage like 108 cm between two mixed oak forest levels. The core view flags it.
+  { file: 'km1-048cm.jsonl', depth: 48, sum: 508, finished: true, start: '2026-10-10T09:00:00.000Z',
+    shares: { Betula: 36, Pinus: 27, Salix: 5, Corylus: 4, Quercus: 1, Poaceae: 11, Cyperaceae: 8, Artemisia: 5, Amaranthaceae: 2, Rumex: 1, Sphagnum: 2, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
 ];
 
 function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
@@ -75,7 +85,7 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
     }
     return stamp.seq;
   };
-  write({ type: 'open', format: FORMAT_VERSION, session: hex(32), level: `KM1-${level.depth}`, depth: level.depth, site: 'Kestrel Mere', core: 'KM-1', slide: `KM1-${String(level.depth).padStart(3, '0')}-A`, analyst: 'demo analyst', keymap, rules: level.rules ?? DEFAULT_RULES, spike: SPIKE });
+  write({ type: 'open', format: FORMAT_VERSION, session: hex(32), level: `KM1-${level.depth}`, depth: level.depth, site: 'Kestrel Mere', core: 'KM-1', slide: `KM1-${String(level.depth).padStart(3, '0')}-A`, analyst: 'demo analyst', keymap, rules: level.rules ?? DEFAULT_RULES, spike: SPIKE, fromCore: { overrides: level.overrides ?? [] } });
   let sitting = 1;
   write({ type: 'sitting', sitting }, 50);
   let traverse = 1;
@@ -97,6 +107,11 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
       write({ type: 'close' }, 4_000);
       sitting++;
       write({ type: 'sitting', sitting }, 18 * 3600_000 + random() * 3600_000);
+      if (level.secondSlide) {
+        // No draw from the random stream here: the counts stay those of one slide; the traverses go on numbered.
+        traverse++;
+        write({ type: 'slide', slide: level.secondSlide, traverse }, 30_000);
+      }
     }
     const u = level.uneven;
     const weights = taxa.map(([t, w]) => (u && t === u.taxon && u.traverses.includes(traverse) ? w * u.factor : w));
@@ -150,6 +165,23 @@ function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {
 const out = resolve(process.argv[2] ?? 'demo-sessions');
 mkdirSync(out, { recursive: true });
 const { keymap } = loadKeymap('temperate-lowland');
+// The demo core's core.json: every 12 cm planned from 12 to 108, five counted, one planned between each pair.
+const core: CoreConfig = {
+  format: CORE_FORMAT,
+  site: 'Kestrel Mere',
+  core: 'KM-1',
+  keymap,
+  rules: DEFAULT_RULES,
+  markerBatch: { tablets: SPIKE.tablets, perTablet: SPIKE.perTablet, perTabletSd: SPIKE.perTabletSd },
+  depths: [12, 24, 36, 48, 60, 72, 84, 96, 108],
+  synonyms: { Gramineae: 'Poaceae', Compositae: 'Asteraceae' },
+  summaryGroups: [
+    { name: 'Mixed oak forest', taxa: ['Quercus', 'Ulmus', 'Tilia', 'Fraxinus'] },
+    { name: 'Open ground', taxa: ['Poaceae', 'Artemisia', 'Plantago lanceolata', 'Rumex', 'Amaranthaceae'] },
+  ],
+};
+writeFileSync(join(out, CORE_FILE), coreFileText(core));
+process.stdout.write(`wrote ${join(out, CORE_FILE)}\n`);
 LEVELS.forEach((level, i) => {
   writeFileSync(join(out, level.file), buildLevel(level, keymap, 1000 + i));
   process.stdout.write(`wrote ${join(out, level.file)}\n`);

@@ -33,6 +33,7 @@ export const LONG_COLUMNS = [
   'group',
   'in_sum',
   'count',
+  'cf_count',
   'percent',
   'ci_low',
   'ci_high',
@@ -77,6 +78,8 @@ export function longRows(levels: readonly ExportLevel[]): Cell[][] {
         r.group,
         r.inSum ? 'yes' : 'no',
         r.count,
+        // Grains of the count marked cf. (probable, not certain): part of `count`, not added to it.
+        state.cf[r.taxon] ?? 0,
         round(r.percent, 4),
         round(r.ciLow, 4),
         round(r.ciHigh, 4),

@@ -46,6 +46,7 @@ export function levelSummary(state: LevelState, rarefyAt: readonly number[] = []
     sittings: state.sitting,
     closedCleanly: state.closed,
     finishedAt: state.finishedAt,
+    reopens: state.reopens,
     groups: table.groupTotals,
     sumGroups: table.sumGroups,
     groupOrder: table.groups,
@@ -59,6 +60,8 @@ export function levelSummary(state: LevelState, rarefyAt: readonly number[] = []
         group: r.group,
         inSum: r.inSum,
         count: r.count,
+        /** Of `count`, the cf. grains (identification probable, not certain). */
+        cf: state.cf[r.taxon] ?? 0,
         basis: r.basis,
         percent: r.percent,
         ciLow: r.ciLow,

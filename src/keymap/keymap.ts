@@ -7,7 +7,7 @@ export interface TaxonBinding {
   readonly inSum?: false;
 }
 
-export const ACTION_NAMES = ['undo', 'traverse', 'note', 'help', 'newType'] as const;
+export const ACTION_NAMES = ['undo', 'traverse', 'note', 'help', 'newType', 'cf'] as const;
 export type ActionName = (typeof ACTION_NAMES)[number];
 
 /** Keys that are not printable characters, by the names a keymap file uses for them. */
@@ -37,10 +37,12 @@ export const DEFAULT_ACTIONS: Readonly<Record<ActionName, KeyName>> = {
   note: 'enter',
   help: '?',
   newType: '=',
+  // The next grain is a cf. one; no bundled keymap has a taxon on the apostrophe.
+  cf: "'",
 };
 
 /** Actions added after keymaps were first written: their default key yields to a taxon on it. */
-export const LATER_ACTIONS: ReadonlySet<ActionName> = new Set(['help', 'newType']);
+export const LATER_ACTIONS: ReadonlySet<ActionName> = new Set(['help', 'newType', 'cf']);
 
 /** Names for keys a person cannot see printed: drawn and listed with these. */
 const SHOWN: Readonly<Record<string, string>> = {

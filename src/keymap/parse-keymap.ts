@@ -83,6 +83,8 @@ export function parseKeymap(text: string, source: string): KeymapResult {
   }
   const layout = readLayout(body);
   if ('message' in layout) return fail(layout.message);
+  // Only a copy that exine writes (session file, core.json) lists its groups; a person writes name → role.
+  if (Array.isArray((json.value as { groups?: unknown } | null)?.groups)) return fail('"groups" must be an object of group name → role (sum, outside, marker, indeterminable), e.g. { "NPP": "outside" }');
   return checkKeymapValue(json.value, source, true, layout.order);
 }
 

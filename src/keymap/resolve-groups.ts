@@ -37,8 +37,11 @@ function fromCopy(list: readonly unknown[]): GroupsResult {
  */
 export function resolveGroups(given: unknown, sum: readonly string[] | undefined, strict: boolean): GroupsResult {
   const fail = (message: string): GroupsResult => ({ ok: false, message });
-  // Only a copy in a session file writes the list; a person writes name → role.
-  if (Array.isArray(given)) return strict ? fail('"groups" must be an object of group name → role (sum, outside, marker, indeterminable), e.g. { "NPP": "outside" }') : fromCopy(given);
+  // A copy (in a session file or core.json) writes the list; a person writes name → role (parseKeymap holds to that).
+  if (Array.isArray(given)) {
+    const copy = fromCopy(given);
+    return copy.ok ? judged(copy.groups, strict) : copy;
+  }
   const roles: Record<BuiltInGroup, GroupRole> = { ...BUILT_IN_ROLE };
   const own: GroupDef[] = [];
   const stated = new Map<string, GroupRole>();
@@ -78,7 +81,12 @@ export function resolveGroups(given: unknown, sum: readonly string[] | undefined
     }
     for (const g of own) if (inSum.has(g.name)) (g as { role: GroupRole }).role = 'sum';
   }
-  const groups = orderGroups(roles, own);
+  return judged(orderGroups(roles, own), strict);
+}
+
+/** Markers or indeterminables inside the sum are refused (in a person's keymap); some group must be in the sum. */
+function judged(groups: GroupDef[], strict: boolean): GroupsResult {
+  const fail = (message: string): GroupsResult => ({ ok: false, message });
   const wrong = groups.find((g) => g.role === 'sum' && (BUILT_IN_ROLE[g.name as BuiltInGroup] === 'marker' || BUILT_IN_ROLE[g.name as BuiltInGroup] === 'indeterminable'));
   if (wrong && strict) {
     const what = wrong.name === 'markers' ? 'exotic marker grains' : 'indeterminable grains';

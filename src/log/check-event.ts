@@ -69,6 +69,7 @@ export function checkEventContent(record: Record<string, unknown>, lineNo: numbe
 export class References {
   private readonly grains = new Set<number>();
   private readonly voids = new Set<number>();
+  private readonly traverses = new Set<number>();
 
   /** What is wrong with the event's reference, or null; then remembers the event. */
   check(event: ParsedEvent): string | null {
@@ -80,6 +81,12 @@ export class References {
         break;
       case 'undo':
         if (!this.grains.has(event.of)) wrong = points('an undo of', event.of, 'grain');
+        break;
+      case 'traverse':
+        this.traverses.add(event.seq);
+        break;
+      case 'traverse-undo':
+        if (!this.traverses.has(event.of)) wrong = points('a take-back of', event.of, 'traverse');
         break;
       case 'void':
         if (event.grain !== null && !this.grains.has(event.grain)) wrong = points('a void of', event.grain, 'grain');

@@ -65,10 +65,13 @@ const grain = z.object({
   taxon: z.string().min(1),
   traverse: z.number().int().positive(),
   key: z.string(),
+  cf: z.literal(true).optional(),
 });
 
 const undo = z.object({ ...stamp, type: z.literal('undo'), of: z.number().int().positive() });
 const traverse = z.object({ ...stamp, type: z.literal('traverse'), traverse: z.number().int().positive() });
+const traverseUndo = z.object({ ...stamp, type: z.literal('traverse-undo'), of: z.number().int().positive(), traverse: z.number().int().positive() });
+const reopen = z.object({ ...stamp, type: z.literal('reopen'), reason: text });
 const note = z.object({
   ...stamp,
   type: z.literal('note'),
@@ -116,6 +119,8 @@ export const eventSchema = z.discriminatedUnion('type', [
   grain,
   undo,
   traverse,
+  traverseUndo,
+  reopen,
   note,
   taxonEvent,
   sitting,
@@ -155,7 +160,8 @@ export function isPlainGrain(v: Record<string, unknown>): boolean {
     typeof v.taxon === 'string' &&
     v.taxon.length > 0 &&
     positiveInt(v.traverse) &&
-    typeof v.key === 'string'
+    typeof v.key === 'string' &&
+    (v.cf === undefined || v.cf === true)
   );
 }
 

@@ -74,9 +74,11 @@ const spike = optional(
 const text = orNull(str);
 
 export const HAND_CHECKS: ReadonlyMap<string, Check> = new Map<string, Check>([
-  ['grain', (v) => stamp(v) && str(v.taxon) && v.taxon.length > 0 && posInt(v.traverse) && str(v.key)],
+  ['grain', (v) => stamp(v) && str(v.taxon) && v.taxon.length > 0 && posInt(v.traverse) && str(v.key) && (v.cf === undefined || v.cf === true)],
   ['undo', (v) => stamp(v) && posInt(v.of)],
   ['traverse', (v) => stamp(v) && posInt(v.traverse)],
+  ['traverse-undo', (v) => stamp(v) && posInt(v.of) && posInt(v.traverse)],
+  ['reopen', (v) => stamp(v) && str(v.reason)],
   ['sitting', (v) => stamp(v) && posInt(v.sitting)],
   ['rules-met', (v) => stamp(v) && count(v.sum) && count(v.grains) && Array.isArray(v.met) && v.met.every(oneOf(RULE_NAMES))],
   ['rules-unmet', (v) => stamp(v) && count(v.sum) && count(v.grains)],

@@ -7,11 +7,15 @@ export function describeEvent(event: SessionEvent): string {
     case 'open':
       return `level ${event.level} opened`;
     case 'grain':
-      return `${event.taxon} (t${event.traverse})`;
+      return `${event.cf ? 'cf. ' : ''}${event.taxon} (t${event.traverse})`;
     case 'undo':
       return `undo of #${event.of}`;
     case 'traverse':
       return `traverse ${event.traverse} started`;
+    case 'traverse-undo':
+      return `back to traverse ${event.traverse} (undo of #${event.of})`;
+    case 'reopen':
+      return `finished level reopened: ${event.reason}`;
     case 'note':
       return `note${event.grain === null ? '' : ` on #${event.grain}`}${event.stage ? ` @${event.stage.x},${event.stage.y}` : ''}: ${event.text}`;
     case 'taxon':

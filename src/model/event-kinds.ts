@@ -25,6 +25,8 @@ export const EVENT_ROLES: { readonly [K in EventType]: EventRole } = {
   grain: 'counting',
   undo: 'counting',
   traverse: 'counting',
+  'traverse-undo': 'counting',
+  reopen: 'counting',
   note: 'counting',
   taxon: 'counting',
   rules: 'counting',

@@ -12,6 +12,7 @@ import type { Spike } from '../stats/concentration.js';
  * copy reads with the built-in groups, its "sum", and the key order of its object.
  * 3 also added the slide event (a level counted on more than one slide) and the open
  * line's fromCore; format 2 files read as format 3 on one slide.
+ * 3 also added cf. grains, the reopen of a finished level and the undo of a traverse change.
  */
 export const FORMAT_VERSION = 3;
 
@@ -52,6 +53,8 @@ export interface GrainPayload {
   readonly traverse: number;
   /** The key that was pressed, for the audit. */
   readonly key: string;
+  /** A "cf." grain: probably this taxon, not certain. It counts with its taxon. Absent before format 3. */
+  readonly cf?: true;
 }
 
 export interface UndoPayload {
@@ -64,6 +67,21 @@ export interface TraversePayload {
   readonly type: 'traverse';
   /** Number of the traverse that starts here. */
   readonly traverse: number;
+}
+
+/** A traverse change taken back (an undo right after it): counting goes on in the traverse before. */
+export interface TraverseUndoPayload {
+  readonly type: 'traverse-undo';
+  /** seq of the traverse event taken back. */
+  readonly of: number;
+  /** The traverse counting goes back to. */
+  readonly traverse: number;
+}
+
+/** A finished level opened for counting again, with the analyst's reason. */
+export interface ReopenPayload {
+  readonly type: 'reopen';
+  readonly reason: string;
 }
 
 /** A note, tied to a grain (or to the level), with the stage position where that grain can be found again. */
@@ -167,6 +185,8 @@ export type EventPayload =
   | GrainPayload
   | UndoPayload
   | TraversePayload
+  | TraverseUndoPayload
+  | ReopenPayload
   | NotePayload
   | TaxonPayload
   | SittingPayload

@@ -1,6 +1,6 @@
 import { inPollenSum, withKey, type Keymap } from '../keymap/keymap.js';
 import { normalRules } from '../rules/rule-set.js';
-import { closedAfter } from './event-kinds.js';
+import { closedAfter, correctingAfter } from './event-kinds.js';
 import type { OpenEvent, SessionEvent } from './events.js';
 import { RECENT_EVENTS, type CountedGrain, type GrainStack, type LevelState } from './level-state.js';
 
@@ -16,6 +16,9 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     lastSeq: open.seq,
     lastAt: open.at,
     traverse: 1,
+    traverseChanges: [],
+    cf: {},
+    reopens: 0,
     counts: {},
     grains: 0,
     firstSeen: {},
@@ -35,7 +38,44 @@ export function initialState(open: OpenEvent, keymap: Keymap): LevelState {
     slide: open.slide,
     slides: [{ slide: open.slide, seq: open.seq, at: open.at, traverse: 1 }],
     ignored: [],
+    countingMs: 0,
+    countingClock: { at: open.at, inSitting: false, correcting: false },
   };
+}
+
+/** A gap longer than this inside a sitting is a pause, not counting: the audit's DEFAULT_GAP_MS (a test holds them equal). */
+export const COUNTING_GAP_MS = 5 * 60_000;
+
+/**
+ * Milliseconds from `from` to `to`, two times as exine stamps them (ISO, UTC, ms).
+ * Most neighbours share their date and hour: then the minutes, seconds and
+ * milliseconds are read from the digits, as replaying a long file parses no date.
+ */
+function msBetween(from: string, to: string): number {
+  if (from.length === 24 && to.length === 24 && from.startsWith(to.slice(0, 14))) {
+    const at = (t: string, i: number) => t.charCodeAt(i) - 48;
+    const ms = (t: string) => (at(t, 14) * 10 + at(t, 15)) * 60_000 + (at(t, 17) * 10 + at(t, 18)) * 1000 + at(t, 20) * 100 + at(t, 21) * 10 + at(t, 22);
+    return ms(to) - ms(from);
+  }
+  return Date.parse(to) - Date.parse(from);
+}
+
+/** Counting time as the audit's sitting walk measures it, one event at a time. */
+function timeCounting(d: Draft, event: SessionEvent): void {
+  const clock = d.countingClock;
+  const correcting = correctingAfter(clock.correcting, event.type);
+  if (correcting) {
+    if (!clock.correcting) d.countingClock = { ...clock, correcting };
+    return;
+  }
+  const inSitting = clock.inSitting || event.type === 'sitting';
+  if (clock.inSitting && event.type !== 'sitting') {
+    const dt = msBetween(clock.at, event.at);
+    if (dt > 0 && dt <= COUNTING_GAP_MS) d.countingMs += dt;
+  }
+  // The clock object is replaced only when a flag changes: one object per sitting, not per event.
+  if (inSitting !== clock.inSitting || clock.correcting) d.countingClock = { at: event.at, inSitting, correcting: false };
+  else (d.countingClock as { at: string }).at = event.at;
 }
 
 /**
@@ -51,7 +91,7 @@ type Draft = { -readonly [K in keyof LevelState]: LevelState[K] } & {
 };
 
 function draftOf(state: LevelState): Draft {
-  return { ...state, counts: { ...state.counts }, firstSeen: { ...state.firstSeen }, recent: [...state.recent], ignored: [...state.ignored] };
+  return { ...state, counts: { ...state.counts }, firstSeen: { ...state.firstSeen }, recent: [...state.recent], ignored: [...state.ignored], countingClock: { ...state.countingClock } };
 }
 
 /**
@@ -101,7 +141,7 @@ function plateauOf(d: Draft): number {
 /** The stack as an array, newest first. */
 function stackArray(stack: GrainStack | null): CountedGrain[] {
   const out: CountedGrain[] = [];
-  for (let s = stack; s; s = s.below) out.push({ seq: s.seq, taxon: s.taxon, traverse: s.traverse });
+  for (let s = stack; s; s = s.below) out.push(s.cf ? { seq: s.seq, taxon: s.taxon, traverse: s.traverse, cf: true } : { seq: s.seq, taxon: s.taxon, traverse: s.traverse });
   return out;
 }
 
@@ -119,13 +159,23 @@ function recount(d: Draft, grains: readonly CountedGrain[]): void {
   d.stack = stackOf(grains);
   d.counts = {};
   d.firstSeen = {};
+  const cf: Record<string, number> = {};
   for (let i = grains.length - 1; i >= 0; i--) {
     const g = grains[i] as CountedGrain;
     d.counts[g.taxon] = (d.counts[g.taxon] ?? 0) + 1;
+    if (g.cf) cf[g.taxon] = (cf[g.taxon] ?? 0) + 1;
     d.firstSeen[g.taxon] ??= g.seq;
   }
+  d.cf = cf;
   d.grains = grains.length;
   d.sinceNewType = plateauOf(d);
+}
+
+/** cf. grains of `taxon` up or down by one; a taxon with none left drops out. */
+function addCf(d: Draft, taxon: string, by: 1 | -1): void {
+  const n = (d.cf[taxon] ?? 0) + by;
+  const { [taxon]: _old, ...rest } = d.cf;
+  d.cf = n > 0 ? { ...rest, [taxon]: n } : rest;
 }
 
 function voidGrains(d: Draft, event: SessionEvent & { type: 'void' }): void {
@@ -157,6 +207,7 @@ function step(d: Draft, event: SessionEvent): void {
   d.recent.push(event);
   if (d.recent.length > RECENT_EVENTS) d.recent.shift();
   d.closed = closedAfter(d.closed, event.type);
+  timeCounting(d, event);
   switch (event.type) {
     case 'open':
       // Only line 1 opens a level; the log reader refuses any other.
@@ -167,10 +218,14 @@ function step(d: Draft, event: SessionEvent): void {
       if (inPollenSum(d.keymap, event.taxon)) d.sinceNewType = d.firstSeen[event.taxon] === undefined ? 0 : d.sinceNewType + 1;
       d.firstSeen[event.taxon] ??= event.seq;
       d.grains++;
-      d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, below: d.stack };
+      if (event.cf) {
+        d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, cf: true, below: d.stack };
+        addCf(d, event.taxon, 1);
+      } else d.stack = { seq: event.seq, taxon: event.taxon, traverse: event.traverse, below: d.stack };
       return;
     case 'undo': {
-      const taxon = findGrain(d.stack, event.of)?.taxon;
+      const undone = findGrain(d.stack, event.of);
+      const taxon = undone?.taxon;
       const stack = withoutGrain(d.stack, event.of);
       if (stack === undefined || taxon === undefined) {
         d.ignored.push(event.seq);
@@ -189,6 +244,7 @@ function step(d: Draft, event: SessionEvent): void {
       d.grains--;
       d.stack = stack;
       d.undos++;
+      if (undone?.cf) addCf(d, taxon, -1);
       // Only undoing a type's first grain can move the newest type; that rare case walks the stack.
       if (inPollenSum(d.keymap, taxon)) {
         if (wasFirst) d.sinceNewType = plateauOf(d);
@@ -197,7 +253,23 @@ function step(d: Draft, event: SessionEvent): void {
       return;
     }
     case 'traverse':
+      d.traverseChanges = [...d.traverseChanges, { seq: event.seq, from: d.traverse, to: event.traverse }];
       d.traverse = event.traverse;
+      return;
+    case 'traverse-undo': {
+      // Only the latest change that stands can be taken back, and only to where it came from.
+      const last = d.traverseChanges.at(-1);
+      if (!last || last.seq !== event.of || last.from !== event.traverse) {
+        d.ignored.push(event.seq);
+        return;
+      }
+      d.traverseChanges = d.traverseChanges.slice(0, -1);
+      d.traverse = event.traverse;
+      return;
+    }
+    case 'reopen':
+      d.finishedAt = null;
+      d.reopens++;
       return;
     case 'note': {
       const noted = event.grain === null ? undefined : findGrain(d.stack, event.grain);

@@ -6,6 +6,15 @@ export interface CountedGrain {
   readonly seq: number;
   readonly taxon: string;
   readonly traverse: number;
+  /** A cf. grain (the identification is probable, not certain). */
+  readonly cf?: true;
+}
+
+/** A traverse change that stands (not taken back), with the traverse it left. */
+export interface TraverseChange {
+  readonly seq: number;
+  readonly from: number;
+  readonly to: number;
 }
 
 /** Grains still counted, newest first: undo pops in O(1) and nothing is copied. */
@@ -29,6 +38,12 @@ export interface LevelState extends LevelCounts {
   readonly lastSeq: number;
   readonly lastAt: string;
   readonly traverse: number;
+  /** Traverse changes that stand, oldest first: an undo right after one takes it back. */
+  readonly traverseChanges: readonly TraverseChange[];
+  /** cf. grains still counted, by taxon (they count in `counts` too). */
+  readonly cf: Readonly<Record<string, number>>;
+  /** How often a finished level was opened again for counting. */
+  readonly reopens: number;
   /** The grains still counted, with their traverses. */
   readonly stack: GrainStack | null;
   readonly undos: number;
@@ -40,7 +55,7 @@ export interface LevelState extends LevelCounts {
   readonly sittingStartedAt: string;
   /** True when the last event is a close or finish: the previous run ended cleanly. */
   readonly closed: boolean;
-  /** When the analyst marked the level finished (the latest time), or null. */
+  /** When the analyst marked the level finished (the latest time), or null; a reopen makes it null again. */
   readonly finishedAt: string | null;
   readonly repairs: number;
   /** The backups the repair events name. */
@@ -52,6 +67,10 @@ export interface LevelState extends LevelCounts {
   /** The slide being counted now, and every slide of the level in order, from the open line's on. */
   readonly slide: string | null;
   readonly slides: readonly SlideSpan[];
+  /** Time spent counting, as the audit measures it: intervals between events of counting inside sittings, pauses over five minutes and corrections left out. */
+  readonly countingMs: number;
+  /** What countingMs needs of the events before: the last event of counting, a sitting seen, a correction under way. */
+  readonly countingClock: { readonly at: string; readonly inSitting: boolean; readonly correcting: boolean };
   /** Events the fold could not apply (an undo of a grain that is not counted): kept, reported. */
   readonly ignored: readonly number[];
 }

@@ -23,7 +23,7 @@ export const DEFAULT_PREFS: Preferences = { bell: true, rare: 2, break: 50, keym
 export const PREF_NAMES = Object.keys(DEFAULT_PREFS) as PrefName[];
 
 export const PREF_HELP: Readonly<Record<PrefName, string>> = {
-  bell: 'on or off: terminal bells for a new type, the stop signal and a break',
+  bell: 'on or off: terminal bells for a new type, a key that counts nothing, the stop signal and a break',
   rare: 'a whole number: types with at most this many grains are listed as rare',
   break: 'minutes of a sitting before a reminder to rest the eyes, or off',
   keymap: 'keymap for new levels: temperate-lowland, keypad, or a path',

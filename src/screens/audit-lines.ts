@@ -6,16 +6,36 @@ import { slideNames } from '../model/slides.js';
 import { fit, plural, right } from '../text/cells.js';
 import { formatDuration } from '../text/durations.js';
 import { perMinute } from '../text/numbers.js';
+import { localClock, localDate, localDateTime } from '../text/local-time.js';
 import { truncated, type Line } from './styled-line.js';
 
-/** "13:10:04" of a timestamp, or "–". */
-export const clockTime = (iso: string | null) => (iso ? iso.slice(11, 19) : '–');
+/** "13:10:04" of a timestamp in local time, or "–". */
+export const clockTime = (iso: string | null) => (iso ? localClock(iso) : '–');
 
-/** A traverse's row of the table: start, time, grains, types, rate, new types, undos, voids, notes. */
-export function traverseLine(t: TraverseRow, withSlide = false): string {
-  const mark = t.voidedWhole ? ' VOID' : '';
+/** A traverse's start in local time, with its date ("12-03 09:14") when that is another day than its sitting's start. */
+export function traverseStart(t: TraverseRow): string {
+  if (!t.start) return '–';
+  if (t.sittingStart && localDate(t.sittingStart) !== localDate(t.start)) return `${localDate(t.start).slice(5)} ${localClock(t.start, false)}`;
+  return localClock(t.start);
+}
+
+/** The traverse table's heading: in full from 120 columns, in short words below. */
+export function traverseHeading(width: number, withSlide = false): string {
+  const slide = withSlide ? ' slide' : '';
+  return width >= 120
+    ? `   #  ${fit('start', 11)}  ${right('time', 5)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new types', 9)}  ${right('undos', 5)}  ${right('voids', 5)}  ${right('notes', 5)}${slide}`
+    : `   # ${fit('start', 11)}  time grain type  /min new und voi not${slide}`;
+}
+
+/** A traverse's row of the table: start, time, grains, types, rate, new types, undos, voids, notes; "empty" when it holds no grain. */
+export function traverseLine(t: TraverseRow, width = 80, withSlide = false): string {
   const slide = withSlide ? ` ${fit(t.slide ?? '–', 5)}` : '';
-  return `${right(String(t.traverse), 3)} ${fit(clockTime(t.start), 8)} ${right(formatDuration(t.activeMs).slice(3), 5)} ${right(String(t.grains), 5)} ${right(String(t.types), 4)} ${right(perMinute(t.perMinute), 5)} ${right(String(t.newTypes.length), 3)} ${right(String(t.undos), 3)} ${right(String(t.voided), 3)} ${right(String(t.notes), 3)}${slide}${mark}`;
+  const mark = t.voidedWhole ? ' VOID' : t.empty ? (t.takenBack ? ` empty (taken back by #${t.takenBack})` : ' empty') : '';
+  const time = right(formatDuration(t.activeMs).slice(3), 5);
+  if (width >= 120) {
+    return `${right(String(t.traverse), 3)}  ${fit(traverseStart(t), 11)}  ${time}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 9)}  ${right(String(t.undos), 5)}  ${right(String(t.voided), 5)}  ${right(String(t.notes), 5)}${slide}${mark}`;
+  }
+  return `${right(String(t.traverse), 3)} ${fit(traverseStart(t), 11)} ${time} ${right(String(t.grains), 5)} ${right(String(t.types), 4)} ${right(perMinute(t.perMinute), 5)} ${right(String(t.newTypes.length), 3)} ${right(String(t.undos), 3)} ${right(String(t.voided), 3)} ${right(String(t.notes), 3)}${slide}${mark}`;
 }
 
 /** What became of each grain, for the event list of a traverse: "undone", "VOIDED by #12", "double press?", or "". */
@@ -40,8 +60,8 @@ export function overviewLines({ audit }: AuditRead, width: number): string[] {
   const ev = audit.evenness;
   return [
     ...audit.sittings.flatMap((s) => [
-      `sitting ${s.sitting}: ${s.start.slice(0, 16).replace('T', ' ')}–${clockTime(s.end)} · counting ${formatDuration(s.countingMs)}${s.pauses.length ? ` · ${plural(s.pauses.length, 'pause')} (${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min`).join(', ')})` : ''}${s.closedCleanly ? '' : ' · not closed cleanly'}`,
-      `  ${s.start.slice(11, 16)} ${timelineBar(s, Math.max(10, Math.min(60, width - 16)))} ${s.end.slice(11, 16)}`,
+      `sitting ${s.sitting}: ${localDateTime(s.start)}–${clockTime(s.end)} · counting ${formatDuration(s.countingMs)}${s.pauses.length ? ` · ${plural(s.pauses.length, 'pause')} (${s.pauses.map((p) => `${Math.round(p.ms / 60_000)} min`).join(', ')})` : ''}${s.closedCleanly ? '' : ' · not closed cleanly'}`,
+      `  ${localClock(s.start, false)} ${timelineBar(s, Math.max(10, Math.min(60, width - 16)))} ${localClock(s.end, false)}`,
     ]),
     ...(ev.ok ? ev.test.flagged.map(describeCell) : []),
     ...audit.flags.map((f) => `[${f.kind}] ${f.text}`),
@@ -53,7 +73,7 @@ function evennessLine(audit: LevelAudit): string {
   const ev = audit.evenness;
   if (!ev.ok) return `Evenness: not tested (${ev.reason})`;
   const { statistic, df, p } = ev.test.result;
-  return `Evenness χ² ${statistic.toFixed(1)}, df ${df}, p ${p < 0.001 ? '<0.001' : p.toFixed(3)}${p < 0.05 ? ': types NOT spread alike' : ': no sign of uneven spread'}${ev.test.flagged.length ? ` · ${plural(ev.test.flagged.length, 'cell')} stand out` : ''}`;
+  return `Evenness χ² ${statistic.toFixed(1)}, df ${df}, p ${p < 0.001 ? '<0.001' : p.toFixed(3)}${p < 0.05 ? ': types NOT spread alike' : ': no sign of uneven spread'}${ev.test.flagged.length ? ` · ${ev.test.flagged.length === 1 ? '1 cell stands' : `${ev.test.flagged.length} cells stand`} out` : ''}`;
 }
 
 /** The four heading lines: the level, the file's integrity with the totals, evenness across traverses, flags and corrections. */

@@ -74,7 +74,7 @@ export function AuditScreen({ source, columns, rows, pollMs = 1000 }: { source: 
       <Box flexDirection="column" height={view.body.height} {...(view.body.clip ? { overflow: 'hidden' as const } : {})}>
         <StyledLines lines={view.body.lines} theme={theme} />
       </Box>
-      <Box height={2} overflow="hidden">
+      <Box height={view.promptHeight} overflow="hidden">
         <StyledText line={view.prompt} theme={theme} />
       </Box>
       <StyledText line={view.keys} theme={theme} />

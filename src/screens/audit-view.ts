@@ -3,9 +3,10 @@ import type { TraverseRow } from '../audit/level-audit.js';
 import { describeEvent } from '../model/describe-event.js';
 import type { SessionEvent } from '../model/events.js';
 import { fit } from '../text/cells.js';
-import { auditHeading, clockTime, grainStatus, overviewLines, traverseLine } from './audit-lines.js';
+import { auditHeading, clockTime, grainStatus, overviewLines, traverseHeading, traverseLine } from './audit-lines.js';
 import { eventsOf, type AuditUi, type AuditView } from './audit-keys.js';
-import { line, truncated, type Line } from './styled-line.js';
+import { line, textOf, truncated, type Line } from './styled-line.js';
+import { wrappedHeight } from './count-lines.js';
 
 /** Everything the audit screen shows, top to bottom, as plain values. */
 export interface AuditScreenView {
@@ -17,6 +18,8 @@ export interface AuditScreenView {
   readonly body: { readonly height: number; readonly clip: boolean; readonly lines: readonly Line[] };
   /** Two lines: the reason being typed, or the last message or warning. */
   readonly prompt: Line;
+  /** Lines the prompt takes: two, or three for a message that needs them (the event list gives one up). */
+  readonly promptHeight: number;
   readonly keys: Line;
 }
 
@@ -44,11 +47,11 @@ export function auditRooms(height: number, traverses: number): { tableRoom: numb
 function traverseTable(traverses: readonly TraverseRow[], ui: AuditUi, room: number, width: number, withSlide: boolean): Line[] {
   const { shown, offset } = scrollWindow(traverses, ui.selected, room);
   return [
-    line(fit(`   # start     time grain type  /min new und voi not${withSlide ? ' slide' : ''}`, width), { bold: true }),
+    line(fit(traverseHeading(width, withSlide), width), { bold: true }),
     ...shown.map((t, i) => {
       const here = offset + i === ui.selected;
       const mark = here ? (ui.focus === 'traverses' ? '▶' : '›') : ' ';
-      return truncated(`${mark}${traverseLine(t, withSlide)}`, { inverse: here && ui.focus === 'traverses', bold: here, tone: t.voidedWhole ? 'zero' : undefined });
+      return truncated(`${mark}${traverseLine(t, width, withSlide)}`, { inverse: here && ui.focus === 'traverses', bold: here, tone: t.voidedWhole ? 'zero' : undefined });
     }),
   ];
 }
@@ -61,13 +64,25 @@ function traverseDetail(traverse: TraverseRow | undefined, ui: AuditUi, room: nu
     : 'no traverse yet';
   return [
     truncated(title, { bold: true }),
-    truncated(traverse?.newTypes.length ? `new here: ${traverse.newTypes.join(', ')}` : ' ', { tone: 'zero' }),
+    truncated(newHere(traverse), { tone: 'zero' }),
     ...shown.map((e, i) => {
       const status = statusOf(e);
       const picked = ui.focus === 'grains' && offset + i === ui.grainIndex;
       return truncated(`${picked ? '▶' : ' '} #${e.seq} ${clockTime(e.at)} ${describeEvent(e)}${status ? ` · ${status}` : ''}`, { inverse: picked, tone: status ? 'warning' : undefined });
     }),
   ];
+}
+
+/** What is new in a traverse: types, then other taxa apart, then its cf. grains; or that it is empty. */
+function newHere(t: TraverseRow | undefined): string {
+  if (!t) return ' ';
+  const parts = [
+    ...(t.empty ? [t.takenBack ? `empty: the change to it was taken back (#${t.takenBack})` : 'empty: no grain recorded'] : []),
+    ...(t.newTypes.length ? [`new types: ${t.newTypes.join(', ')}`] : []),
+    ...(t.newOthers.length ? [`first of other groups: ${t.newOthers.join(', ')}`] : []),
+    ...(t.cf.length ? [`cf.: ${t.cf.map(([taxon, n]) => `${taxon} ${n}`).join(', ')}`] : []),
+  ];
+  return parts.join(' · ') || ' ';
 }
 
 function promptLine(read: AuditRead, ui: AuditUi): Line {
@@ -87,12 +102,16 @@ export function auditScreenView(read: AuditRead, ui: AuditUi, size: { columns: n
   const body = ui.overview
     ? { height: detailRoom + tableRoom + 3, clip: false, lines: [line('Sittings, flags and corrections (f: back)', { bold: true }), ...overviewLines(read, width).slice(0, detailRoom + tableRoom + 2).map((l) => truncated(l))] }
     : { height: detailRoom + 2, clip: true, lines: traverseDetail(traverse, ui, detailRoom, statusOf) };
+  const prompt = promptLine(read, ui);
+  const promptHeight = Math.max(2, Math.min(3, wrappedHeight(textOf(prompt), width)));
+  const extra = promptHeight - 2;
   return {
     width,
     height,
     top: [...auditHeading(read), ...(ui.overview ? [] : traverseTable(traverses, ui, tableRoom, width, read.state.slides.length > 1))],
-    body,
-    prompt: promptLine(read, ui),
+    body: { ...body, height: body.height - extra, lines: body.lines.slice(0, body.height - extra) },
+    prompt,
+    promptHeight,
     keys: truncated(ui.asking ? (ui.message ?? 'Enter records the correction · Esc cancels') : '↑↓ select · Tab traverses/grains · v void · r restore · f flags · q quit', { tone: 'dim' }),
   };
 }

@@ -1,6 +1,16 @@
 import { tableWidth, taxonWidthFor } from './totals-table.js';
 import { saturationHeight } from './saturation-panel.js';
 
+/** The smallest terminal the counting screen is laid out for: the table (56 columns) beside a side column (20), and the panels' shortest stack (12 lines). */
+export const MIN_COLUMNS = 78;
+export const MIN_ROWS = 12;
+
+/** One line for a terminal below the smallest size, or null when it is large enough. */
+export function tooSmall(columns: number, rows: number, min = { columns: MIN_COLUMNS, rows: MIN_ROWS }): string | null {
+  if (columns >= min.columns && rows >= min.rows) return null;
+  return `terminal too small: at least ${min.columns} x ${min.rows} (this one is ${columns} x ${rows}). Make the window larger; keys still count, Ctrl-C saves and quits.`;
+}
+
 export interface LayoutNeeds {
   readonly width: number;
   readonly height: number;

@@ -3,6 +3,7 @@ import type { LevelState } from '../model/level-state.js';
 import type { Snapshot } from '../session/counting-session.js';
 import type { InputMode } from '../session/input-mode.js';
 import { formatDuration } from '../text/durations.js';
+import { localClock, localDateTime, zoneOf } from '../text/local-time.js';
 import { line, truncated, type Line } from './styled-line.js';
 import { stopBanner } from './rules-panel.js';
 
@@ -13,10 +14,12 @@ export function headingLines(state: LevelState, sittingMs: number, breakMinutes:
   const depth = h.depth === null ? '' : ` · depth ${h.depth}`;
   return [
     truncated(`${where ? `${where} · ` : ''}level ${h.level}${depth} · slide ${state.slide ?? '–'}`, { bold: true, tone: 'accent' }),
-    {
+    state.finishedAt
+      ? truncated(`FINISHED ${localDateTime(state.finishedAt)} · read-only · ${state.traverse === 1 ? '1 traverse' : `${state.traverse} traverses`} · ${state.sitting === 1 ? '1 sitting' : `${state.sitting} sittings`}`, { bold: true, tone: 'warning' })
+      : {
       spans: [
         { text: `traverse ${state.traverse}`, bold: true },
-        { text: ` · sitting ${state.sitting} · ${formatDuration(sittingMs)}` },
+        { text: ` · sitting ${state.sitting} since ${localClock(state.sittingStartedAt, false)} ${zoneOf(state.sittingStartedAt)} · ${formatDuration(sittingMs)}` },
         ...(breakDue ? [{ text: ` · time to rest your eyes (${breakMinutes} min)`, bold: true, tone: 'warning' as const }] : []),
       ],
       wrap: 'truncate-end',
@@ -43,6 +46,26 @@ function promptOf(mode: InputMode | null): string | null {
   return null;
 }
 
+/** Lines a text takes when wrapped at word breaks to `width` columns, as the terminal shows it. */
+export function wrappedHeight(text: string, width: number): number {
+  let lines = 1;
+  let used = 0;
+  for (const word of text.split(' ')) {
+    const n = [...word].length;
+    if (used === 0) used = n;
+    else if (used + 1 + n <= width) used += 1 + n;
+    else {
+      lines++;
+      used = n;
+    }
+    while (used > width) {
+      lines++;
+      used -= width;
+    }
+  }
+  return lines;
+}
+
 /** The status under the panels: read-only reason, a typed line, the last message, or what opening found. */
 export function statusArea(snapshot: Snapshot, width: number): { readonly height: number; readonly line: Line } {
   const prompt = promptOf(snapshot.mode);
@@ -51,8 +74,10 @@ export function statusArea(snapshot: Snapshot, width: number): { readonly height
     : prompt
       ? `${snapshot.message ? `${snapshot.message.text} · ` : ''}${prompt}`
       : (snapshot.message?.text ?? (snapshot.notice ? `On opening: ${snapshot.notice}` : ' '));
-  // The status takes the lines it needs (up to 3; word wrap wastes some of each line).
-  const height = Math.min(3, Math.max(1, Math.ceil([...text].length / Math.max(20, width - 12))));
+  // The status takes the lines its words wrap to (up to 4), so no message is cut mid-sentence.
+  const height = Math.min(4, wrappedHeight(`✗ ${text}`, width));
+  // A key that counted nothing flashes: the message in inverse, so it shows at the edge of sight.
+  if (!snapshot.readOnly && !prompt && snapshot.message?.tone === 'miss') return { height, line: line(`✗ ${text}`, { tone: 'warning', bold: true, inverse: true }, 'wrap') };
   const tone = snapshot.message?.tone === 'error' || snapshot.readOnly ? 'error' : prompt ? undefined : 'warning';
   return { height, line: line(text, { tone, bold: prompt !== null }, 'wrap') };
 }
@@ -62,7 +87,7 @@ export function keysLine(keymap: Keymap, width: number): Line {
   const a = keymap.actions;
   const text =
     width >= 100
-      ? `${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} traverse · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new type · ${keyLabel(a.help)} help · Ctrl-F finish · Ctrl-C quit`
-      : `${keyLabel(a.undo).replace('Backspace', 'Bksp')} undo · ${keyLabel(a.traverse)} trav · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new · ${keyLabel(a.help)} help · ^F finish · ^C quit`;
+      ? `${keyLabel(a.undo)} undo · ${keyLabel(a.traverse)} traverse · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new type · ${keyLabel(a.cf)} cf. · ${keyLabel(a.help)} help · Ctrl-F finish · Ctrl-C quit`
+      : `${keyLabel(a.undo).replace('Backspace', 'Bksp')} undo · ${keyLabel(a.traverse)} trav · ${keyLabel(a.note)} note · ${keyLabel(a.newType)} new · ${keyLabel(a.cf)} cf · ${keyLabel(a.help)} help · ^F fin · ^C quit`;
   return truncated(text, { tone: 'dim' });
 }

@@ -1,7 +1,7 @@
-import { Box, useApp, useStdout } from 'ink';
+import { Box, Text, useApp, useStdout } from 'ink';
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import type { CountingSession } from '../session/counting-session.js';
-import { ringOnce, ringStopSignal } from './bell.js';
+import { ringMiss, ringOnce, ringStopSignal } from './bell.js';
 import { countScreenView, levelFacts, type CountMain } from './count-view.js';
 import { PanelBox, StyledLines, StyledText } from './styled-text.js';
 import { useTerminalSize } from './terminal-size.js';
@@ -23,12 +23,14 @@ export interface CountScreenProps {
   /** Terminal size; defaults to the real terminal's. */
   readonly columns?: number;
   readonly rows?: number;
-  /** Terminal bells: one for a new type, three for the stop signal, one for a break (default on). */
+  /** Terminal bells: one for a new type, two quick ones for a key that counts nothing, three for the stop signal, one for a break (default on). */
   readonly bell?: boolean;
   /** Types with at most this many grains are listed as rare (default 2). */
   readonly rareThreshold?: number;
   /** Remind the analyst to rest the eyes after this many minutes of a sitting; null: never. */
   readonly breakMinutes?: number | null;
+  /** False when a parent screen reads the keys and hands them to the session (the core view); default true. */
+  readonly readKeys?: boolean;
 }
 
 /**
@@ -70,7 +72,7 @@ function MainArea({ main, theme }: { main: CountMain; theme: Theme }) {
 }
 
 /** The counting screen: keys go to the session, and the session's snapshot is drawn as its view (count-view.ts). */
-export function CountScreen({ session, columns, rows, bell = true, rareThreshold = 2, breakMinutes = null }: CountScreenProps) {
+export function CountScreen({ session, columns, rows, bell = true, rareThreshold = 2, breakMinutes = null, readKeys = true }: CountScreenProps) {
   const { exit } = useApp();
   const terminal = useTerminalSize();
   const snapshot = useSyncExternalStore(session.subscribe, session.getSnapshot);
@@ -81,15 +83,26 @@ export function CountScreen({ session, columns, rows, bell = true, rareThreshold
   useRingOnRise(view.rings.stop, bell, ringStopSignal);
   useRingOnRise(view.rings.types, bell, ringOnce);
   useRingOnRise(view.rings.breaks, bell, ringOnce);
+  useRingOnRise(view.rings.misses, bell, ringMiss);
 
   // Every key of a burst is applied in order against the session, never against a rendered value.
   useRawKeys((keys) => {
+    if (!readKeys) return;
     if (session.pressAll(keys) === 'quit') {
       session.shutdown();
       exit();
     }
   });
 
+  if (view.tooSmall) {
+    return (
+      <Box width={view.width}>
+        <Text bold wrap="wrap">
+          {view.tooSmall}
+        </Text>
+      </Box>
+    );
+  }
   return (
     <Box flexDirection="column" width={view.width} height={view.height}>
       <StyledLines lines={view.heading} theme={theme} />

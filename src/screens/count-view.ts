@@ -4,7 +4,7 @@ import type { LevelState } from '../model/level-state.js';
 import { levelReport, type LevelReport } from '../rules/level-report.js';
 import type { Snapshot } from '../session/counting-session.js';
 import { LiveSaturationCurve, type SaturationCurve } from '../stats/accumulation.js';
-import { countLayout, type CountLayout } from './count-layout.js';
+import { countLayout, tooSmall, type CountLayout } from './count-layout.js';
 import { headingLines, keysLine, statusArea, stopBannerLine } from './count-lines.js';
 import { helpOverlay } from './help-overlay.js';
 import { rareLineCount, rareLines, rareTypes, type RareType } from './rare-types.js';
@@ -60,10 +60,14 @@ export interface Rings {
   readonly stop: number;
   readonly types: number;
   readonly breaks: number;
+  /** Keys that counted nothing. */
+  readonly misses: number;
 }
 
 /** Everything the counting screen shows, top to bottom, as plain values. */
 export interface CountScreenView {
+  /** Set below the smallest size the layout supports: the screen shows only this. */
+  readonly tooSmall: string | null;
   readonly width: number;
   readonly height: number;
   readonly heading: readonly Line[];
@@ -74,9 +78,14 @@ export interface CountScreenView {
   readonly rings: Rings;
 }
 
-function lastGrainTaxon(state: LevelState): string | null {
-  const last = state.recent.at(-1);
-  return last?.type === 'grain' ? last.taxon : null;
+/** The taxon of the grain just counted: the last event, the rule verdict it brought aside. */
+export function lastGrainTaxon(state: LevelState): string | null {
+  for (let i = state.recent.length - 1; i >= 0; i--) {
+    const e = state.recent[i];
+    if (e?.type === 'rules-met' || e?.type === 'rules-unmet') continue;
+    return e?.type === 'grain' ? e.taxon : null;
+  }
+  return null;
 }
 
 /** Break spans passed in this sitting: the reminder shows from the first on, and each new one rings. */
@@ -102,7 +111,7 @@ function panelsArea(state: LevelState, facts: LevelFacts, layout: CountLayout, r
   return {
     kind: 'panels',
     height: mainHeight,
-    table: { width: tableWidth(taxonWidth), lines: totalsLines(table, mainHeight - 1, lastGrainTaxon(state), taxonWidth) },
+    table: { width: tableWidth(taxonWidth), lines: totalsLines(table, mainHeight - 1, lastGrainTaxon(state), taxonWidth, state.cf) },
     sideWidth,
     gap,
     columns: wide ? [first, second()] : [first],
@@ -129,6 +138,7 @@ export function countScreenView(input: CountViewInput, facts: LevelFacts = level
     rareLines: rareLineCount(facts.rare),
   });
   return {
+    tooSmall: tooSmall(width, input.rows),
     width,
     height,
     heading: headingLines(state, sittingMs, breakMinutes, breaks > 0),
@@ -136,6 +146,6 @@ export function countScreenView(input: CountViewInput, facts: LevelFacts = level
     main: mode?.kind === 'help' ? { kind: 'help', panel: { width, height: layout.mainHeight, lines: helpOverlay(state.keymap, width, layout.mainHeight) } } : panelsArea(state, facts, layout, rareThreshold),
     status,
     keys: keysLine(state.keymap, width),
-    rings: { stop: state.lastRulesMet?.seq ?? 0, types: facts.types.size, breaks },
+    rings: { stop: state.lastRulesMet?.seq ?? 0, types: facts.types.size, breaks, misses: snapshot.misses },
   };
 }

@@ -6,10 +6,11 @@ import { line, type Line } from './styled-line.js';
 export function helpLines(keymap: Keymap, width: number, room: number): string[] {
   const a = keymap.actions;
   const actions = [
-    `${keyLabel(a.undo)} undo the last grain`,
+    `${keyLabel(a.undo)} undo the last grain, or a traverse change made after it`,
     `${keyLabel(a.traverse)} next traverse`,
     `${keyLabel(a.note)} note on the last grain ("@x,y" = stage position)`,
     `${keyLabel(a.newType)} a type not in the keymap ("name, group")`,
+    `${keyLabel(a.cf)} then a taxon key: a cf. grain of it (probable, not certain)`,
     `${keyLabel(a.help)} this help · Ctrl-F finish the level · Ctrl-C save and quit`,
   ];
   const taxa = bindingsOf(keymap).map(([k, b]) => `${keyLabel(k)} ${b.taxon}`);

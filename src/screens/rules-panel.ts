@@ -10,7 +10,7 @@ export function showsRulesPanel(report: RuleReport): boolean {
 }
 
 export function rulesPanelHeight(report: RuleReport, conc: Concentration | null): number {
-  return (showsRulesPanel(report) ? 1 + report.rules.length : 0) + (conc ? 1 : 0);
+  return (showsRulesPanel(report) ? 1 + report.rules.reduce((n, r) => n + ruleLines(r, 22).length, 0) : 0) + (conc ? 1 : 0);
 }
 
 /** "met", "+120" grains still needed, "?" when no estimate can be made yet, "never" when out of reach. */
@@ -40,6 +40,19 @@ export function ruleLine(r: RuleStatus, room: number): string {
   return head.length + 1 + tail.length <= width ? `${head}${right(tail, width - head.length)}` : fit(`${head} ${tail}`, width);
 }
 
+/**
+ * A rule's lines. The precision rule takes two, so its goal is said in words
+ * ("half-width ≤ 4 points") and its scope and value still fit a narrow panel.
+ */
+export function ruleLines(r: RuleStatus, room: number): string[] {
+  if (r.rule !== 'precision') return [ruleLine(r, room)];
+  const width = Math.min(room, 34);
+  const scope = r.label.replace(/^±\S+ pts ?/, '');
+  const head = `  ${scope} now ${ruleValue(r.rule, r.value)}`;
+  const tail = need(r);
+  return [fit(`half-width ≤ ${ruleValue(r.rule, r.target)} points`, width), head.length + 1 + tail.length <= width ? `${head}${right(tail, width - head.length)}` : fit(`${head} ${tail}`, width)];
+}
+
 export function concentrationLine(c: Concentration): string {
   const unit = c.unit === 'grains/cm3' ? '/cm³' : '/g';
   if (c.value === null) return `conc. – (no marker yet)`;
@@ -54,7 +67,7 @@ export function rulesLines(report: RuleReport, conc: Concentration | null, width
     ...(showsRulesPanel(report)
       ? [
           line(fit(`Stop if ${report.mode === 'all' ? 'all' : 'any'}${report.minSum ? ` · sum≥${report.minSum}` : ''}`, width), { bold: true }),
-          ...report.rules.map((r) => line(fit(ruleLine(r, width), width), { tone: r.met ? 'ok' : undefined })),
+          ...report.rules.flatMap((r) => ruleLines(r, width).map((text) => line(fit(text, width), { tone: r.met ? 'ok' : undefined }))),
         ]
       : []),
     ...(conc ? [line(fit(concentrationLine(conc), width))] : []),

@@ -1,9 +1,21 @@
 import { render } from 'ink';
 import { CountingSession } from '../session/counting-session.js';
-import type { OpenedLevel } from '../session/session-files.js';
+import { readLevel, type OpenedLevel } from '../session/session-files.js';
+import type { LevelState } from '../model/level-state.js';
 import { levelTable } from '../stats/level-table.js';
 import { visible } from '../text/visible.js';
 import { CountScreen } from './count-screen.js';
+
+/** What the terminal keeps after the screen: saved, or finished with the hash to write down, or only looked at. */
+function quitLine(path: string, state: LevelState, viewOnly: boolean): string {
+  const table = levelTable(state);
+  const totals = `${table.grains === 1 ? '1 grain' : `${table.grains} grains`}, pollen sum ${table.pollenSum}`;
+  if (!viewOnly && state.recent.at(-1)?.type !== 'finish') return `saved ${path}: ${totals}`;
+  // The hash of the last line seals the file: written down now, it shows later that nothing was changed.
+  const { scan } = readLevel(path);
+  const seal = `last line #${state.lastSeq}, hash ${scan.lastHash}`;
+  return viewOnly ? `${path} is finished and was opened read-only; nothing changed (${totals}; ${seal})` : `finished ${path}: ${totals}\n${seal} (write it down: exine verify shows it again)`;
+}
 
 const SIGNALS = { SIGINT: 2, SIGHUP: 1, SIGTERM: 15 } as const;
 
@@ -39,9 +51,8 @@ export async function runCountScreen(opened: OpenedLevel, options: { bell?: bool
     for (const [signal, handler] of handlers) process.off(signal, handler);
     process.off('uncaughtException', onCrash);
   }
-  const table = levelTable(session.getSnapshot().state);
   // Printed after the screen, outside Ink: escaped here (a lock's host, a file name).
   for (const notice of opened.notices) process.stdout.write(`on opening: ${visible(notice)}\n`);
-  process.stdout.write(`saved ${visible(session.path)}: ${table.grains} grains, pollen sum ${table.pollenSum}\n`);
+  for (const l of quitLine(session.path, session.getSnapshot().state, opened.writer.viewOnly === true).split('\n')) process.stdout.write(`${visible(l)}\n`);
   return exitCode;
 }

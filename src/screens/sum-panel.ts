@@ -7,7 +7,7 @@ import { line, type Line } from './styled-line.js';
 const SHORT: Readonly<Record<string, string>> = {
   trees: 'Trees',
   herbs: 'Herbs',
-  markers: 'Mark',
+  markers: 'Marks',
 };
 const shortOf = (g: Group) => SHORT[g] ?? groupTitle(groupShort(g, 5));
 const capital = groupTitle;
@@ -28,7 +28,8 @@ function groupCell(table: LevelTable, g: Group, width: number): string {
   const n = table.groupTotals[g] ?? 0;
   const outside = !table.sumGroups.includes(g);
   const share = outside && n > 0 ? ` ${((100 * n) / (table.pollenSum + n)).toFixed(0)}%` : '';
-  return `${fit(capital(g), Math.max(4, width - 6 - share.length - (outside ? 2 : 0)))} ${right(String(n), 5)}${share}${outside ? ' *' : ''}`;
+  // One label width for every group, so the counts stand in one column.
+  return `${fit(capital(g), Math.max(4, width - 12))} ${right(String(n), 5)}${right(share, 4)}${outside ? ' *' : ''}`;
 }
 
 /** The pollen sum against its target as a bar, then the group subtotals: whole, or two to a line when short of rows. */

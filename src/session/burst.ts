@@ -4,7 +4,7 @@ import type { LevelState } from '../model/level-state.js';
 import { rulesSignal } from '../model/rules-signal.js';
 import type { InputMode } from './input-mode.js';
 
-export type Tone = 'info' | 'warning' | 'error';
+export type Tone = 'info' | 'warning' | 'error' | 'miss';
 export interface Message {
   readonly text: string;
   readonly tone: Tone;
@@ -21,6 +21,8 @@ export type Outcome = 'go-on' | 'quit';
 export class Burst {
   readonly payloads: EventPayload[] = [];
   message: Message | null | undefined = undefined;
+  /** Keys in this burst that counted nothing (not in the keymap): each rings. */
+  misses = 0;
   private draft: LevelState;
   private applied = 0;
 
@@ -55,5 +57,11 @@ export class Burst {
 
   say(text: string, tone: Tone = 'info'): void {
     this.message = { text, tone };
+  }
+
+  /** A key that counted nothing: said in the flash tone, and rung. */
+  miss(text: string): void {
+    this.misses++;
+    this.message = { text, tone: 'miss' };
   }
 }

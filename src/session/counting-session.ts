@@ -1,5 +1,5 @@
 import type { KeyPress } from '../input/key-press.js';
-import { AppendError, type SessionWriter } from '../log/session-writer.js';
+import { AppendError } from '../log/session-writer.js';
 import type { EventPayload } from '../model/events.js';
 import { applyEvents } from '../model/fold.js';
 import type { LevelState } from '../model/level-state.js';
@@ -7,6 +7,7 @@ import type { InputMode } from './input-mode.js';
 import { unconfirmedQuestion } from './mode-keys.js';
 import { planBurst, type Message } from './plan-burst.js';
 import type { UnconfirmedGrains } from './session-files.js';
+import type { LevelWriter } from './view-only.js';
 
 export interface Snapshot {
   readonly state: LevelState;
@@ -18,6 +19,8 @@ export interface Snapshot {
   readonly closed: boolean;
   /** Set while the screen asks a question, shows the help, or takes a typed line. */
   readonly mode: InputMode | null;
+  /** Keys so far that counted nothing (not in the keymap): the screen rings when it rises. */
+  readonly misses: number;
 }
 
 /**
@@ -29,7 +32,7 @@ export class CountingSession {
   private readonly listeners = new Set<() => void>();
 
   constructor(
-    private readonly writer: SessionWriter,
+    private readonly writer: LevelWriter,
     state: LevelState,
     notices: readonly string[] = [],
     private readonly unconfirmed?: UnconfirmedGrains,
@@ -42,6 +45,7 @@ export class CountingSession {
       readOnly: writer.readOnly,
       closed: false,
       mode,
+      misses: 0,
     };
   }
 
@@ -73,13 +77,21 @@ export class CountingSession {
    */
   pressAll(keys: readonly KeyPress[]): 'quit' | undefined {
     if (this.snapshot.closed) return undefined;
+    if (this.writer.viewOnly) return this.look(keys);
     const asked = this.snapshot.mode?.kind === 'unconfirmed';
     const plan = planBurst(this.snapshot.state, this.snapshot.mode, keys);
     if (plan.payloads.length > 0 && !this.commit(plan.payloads)) return undefined;
     // The answer about grains of a failed sync is on disk: the marker beside the file has done its work.
     if (asked && plan.mode?.kind !== 'unconfirmed') this.unconfirmed?.answered();
-    this.publish({ mode: plan.mode, ...(plan.message === undefined ? {} : { message: plan.message }) });
+    this.publish({ mode: plan.mode, misses: this.snapshot.misses + plan.misses, ...(plan.message === undefined ? {} : { message: plan.message }) });
     return plan.quit ? 'quit' : undefined;
+  }
+
+  /** A finished level being looked at: Ctrl-C quits, every other key counts nothing and says so. */
+  private look(keys: readonly KeyPress[]): 'quit' | undefined {
+    if (keys.some((k) => k.kind === 'interrupt')) return 'quit';
+    this.publish({ message: { text: 'nothing counted: this level is finished and open read-only (Ctrl-C quits; exine count FILE --reopen "reason" counts on)', tone: 'warning' } });
+    return undefined;
   }
 
   /** Append events and, only once they are on disk, move the state. On failure nothing moves and the screen says why. */

@@ -5,6 +5,8 @@ import type { CountedGrain } from '../model/level-state.js';
 export type InputMode =
   | { readonly kind: 'confirm-finish' }
   | { readonly kind: 'help' }
+  /** The cf. key was pressed: the next taxon key counts a cf. grain. */
+  | { readonly kind: 'cf' }
   /** A note on the grain `grain` (null: on the level), being typed. */
   | { readonly kind: 'note'; readonly grain: number | null; readonly taxon: string | null; readonly text: string }
   /** The name and group of a type that is not in the keymap, being typed. */

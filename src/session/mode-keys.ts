@@ -1,3 +1,4 @@
+import { resolveKey } from '../keymap/resolve-key.js';
 import type { KeyPress } from '../input/key-press.js';
 import { editLine, LINE_FULL_MESSAGE, lineFull } from '../input/line-edit.js';
 import type { Burst, Outcome } from './burst.js';
@@ -122,6 +123,27 @@ function unconfirmedKey(b: Burst, mode: ModeOf<'unconfirmed'>, key: KeyPress): O
   return 'go-on';
 }
 
+/** After the cf. key: a taxon key counts a cf. grain of it; the cf. key again or any other key counts nothing. */
+function cfKey(b: Burst, key: KeyPress): Outcome {
+  b.mode = null;
+  const state = b.state();
+  const command = resolveKey(state.keymap, key);
+  if (command.kind === 'quit') return 'quit';
+  if (command.kind === 'tally') {
+    b.stage({ type: 'grain', taxon: command.taxon, traverse: state.traverse, key: command.key, cf: true });
+    b.judge();
+    const after = b.state();
+    b.say(`cf. ${command.taxon} counted (${command.taxon}: ${after.counts[command.taxon] ?? 0}, of them cf. ${after.cf[command.taxon] ?? 0})`);
+    return 'go-on';
+  }
+  if (command.kind === 'action' && command.action === 'cf') {
+    b.say('cf. cancelled: nothing counted');
+    return 'go-on';
+  }
+  b.miss('cf. cancelled: that key is no taxon key, nothing counted');
+  return 'go-on';
+}
+
 /** A key while a question, the help or a typed line is open: one reducer per mode. */
 export function modeKey(b: Burst, mode: InputMode, key: KeyPress): Outcome {
   switch (mode.kind) {
@@ -129,6 +151,8 @@ export function modeKey(b: Burst, mode: InputMode, key: KeyPress): Outcome {
       return finishKey(b, key);
     case 'help':
       return helpKey(b, key);
+    case 'cf':
+      return cfKey(b, key);
     case 'note':
       return noteKey(b, mode, key);
     case 'new-type':

@@ -17,6 +17,8 @@ export interface BurstPlan {
   /** The mode the next burst starts in (a question, a line being typed, the help), or null. */
   readonly mode: InputMode | null;
   readonly quit: boolean;
+  /** Keys that counted nothing, for the miss-key bell. */
+  readonly misses: number;
 }
 
 export const FINISH_PROMPT = 'Finish this level? y = finish and quit, any other key = go on counting';
@@ -29,9 +31,13 @@ function countingKey(b: Burst, key: KeyPress): Outcome {
     case 'record':
       b.stage(decision.payload);
       if (decision.payload.type === 'grain' || decision.payload.type === 'undo') b.judge();
+      if (decision.message) b.say(decision.message);
       return 'go-on';
     case 'say':
       b.say(decision.message);
+      return 'go-on';
+    case 'miss':
+      b.miss(decision.message);
       return 'go-on';
     case 'confirm-finish':
       b.mode = { kind: 'confirm-finish' };
@@ -65,5 +71,5 @@ export function planBurst(start: LevelState, startMode: InputMode | null, keys: 
       break;
     }
   }
-  return { payloads: b.payloads, message: b.message, mode: b.mode, quit };
+  return { payloads: b.payloads, message: b.message, mode: b.mode, quit, misses: b.misses };
 }

@@ -15,9 +15,12 @@ import { rulesSignal } from '../model/rules-signal.js';
 import { FORMAT_VERSION, type EventPayload, type LevelInfo, type OpenEvent, type RestorePayload, type SessionEvent, type VoidPayload } from '../model/events.js';
 import { applyEvent, applyEvents, foldEvents, startFold, type Folding } from '../model/fold.js';
 import type { CountedGrain, LevelState } from '../model/level-state.js';
+import { localDate } from '../text/local-time.js';
+import { ViewOnly, type LevelWriter } from './view-only.js';
 
 export interface OpenedLevel {
-  readonly writer: SessionWriter;
+  /** The session writer, or a finished level's read-only view (nothing written). */
+  readonly writer: LevelWriter;
   readonly state: LevelState;
   /** What the analyst should be told on opening: repairs, an unclean last exit, a lock taken over. */
   readonly notices: readonly string[];
@@ -126,6 +129,21 @@ export interface ResumeOptions extends WriterOptions {
    * file untouched. It may return rules and spike data worked out from the level.
    */
   readonly beforeWrite?: (state: LevelState) => RuleChange | void;
+  /** Count on in a finished level, for this reason (recorded); without it a finished level opens read-only. */
+  readonly reopen?: string | undefined;
+}
+
+/** A finished level opened to look at: the checks run, but nothing is written, repaired or locked. */
+function viewFinished(path: string, state: LevelState, scan: LogScan, change: RuleChange): OpenedLevel {
+  const rules = change.rules ?? state.rules;
+  const spike = change.spike === undefined ? state.spike : change.spike;
+  if (!sameRules(rules, state.rules) || JSON.stringify(spike) !== JSON.stringify(state.spike)) {
+    throw new ExineError(`${path}: this level is finished; its rules and spike data change only when it is reopened (add --reopen "reason")`);
+  }
+  const finished = `finished ${localDate(state.finishedAt as string)}`;
+  const notices = [`this level is ${finished}: open read-only, nothing is counted (exine count FILE --reopen "reason" counts on)`];
+  if (scan.tail) notices.push(`${scan.tail.message}; left as it is (--reopen repairs it)`);
+  return { writer: new ViewOnly(path, state.lastSeq, `this level is ${finished}; Ctrl-C quits, --reopen "reason" counts on`), state, notices };
 }
 
 export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLevel {
@@ -141,6 +159,14 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
       );
     }
     const change = { rules: options.rules, spike: options.spike, ...(options.beforeWrite?.(folded) ?? {}) };
+    const reopen = options.reopen?.trim();
+    if (options.reopen !== undefined && !reopen) throw new ExineError('--reopen needs a reason: say why the finished level is counted on, in a few words');
+    if (reopen && !folded.finishedAt) throw new ExineError(`${path}: this level is not finished, so there is nothing to reopen (leave out --reopen)`);
+    if (folded.finishedAt && !reopen) {
+      const view = viewFinished(path, folded, scan, change);
+      lock.release();
+      return view;
+    }
     let repaired = null;
     if (scan.tail) {
       repaired = repairTail(path, bytes, scan.tail, (options.clock ?? (() => new Date()))());
@@ -151,7 +177,7 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
     let state = folded;
     const unconfirmed = unconfirmedAtOpen(path, scan.goodBytes, state, notices);
     if (state.finishedAt) {
-      notices.push(`this level was marked finished on ${state.finishedAt.slice(0, 10)}; grains counted now are added after that`);
+      notices.push(`this level was finished ${localDate(state.finishedAt)} and is reopened: "${reopen}" is recorded`);
     } else if (!repaired && !state.closed) {
       notices.push('the last sitting was not closed cleanly (the program was stopped); every grain it showed is on disk');
     }
@@ -172,6 +198,7 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
       notices.push(`found ${orphan.name} (${orphan.bytes} bytes cut off by a repair that was stopped before it was recorded); it is recorded now and kept`);
     }
     record({ type: 'sitting', sitting: trial.sitting + 1 });
+    if (reopen) record({ type: 'reopen', reason: reopen });
     const before = trial;
     const rules = change.rules ?? before.rules;
     const spike = change.spike === undefined ? before.spike : change.spike;

@@ -41,10 +41,10 @@ describe('exine audit --plain', () => {
     const out = run.stdout;
     expect(out).toMatch(/^Audit of level\.jsonl\n/);
     expect(out).toMatch(/level T-1 · depth 10 · slide TM1-010-A · analyst A\. Counter/);
-    expect(out).toMatch(/keymap "tiny" · counted 2026-11-02 09:00 to 2026-11-02 09:\d\d UTC · not finished/);
+    expect(out).toMatch(/keymap "tiny" · counted 2026-11-02 09:00 UTC to 2026-11-02 09:\d\d UTC · not finished/);
     expect(out).toMatch(/integrity: intact: level\.jsonl: intact, 1\d\d lines, chain verified/);
-    expect(out).toMatch(/\n\s+1  2026-11-02 09:00\s+00:02:0\d\s+40\s+3 /);
-    expect(out).toMatch(/\n\s+3  2026-11-02 09:0\d\s+[\d:]+\s+47\s+4 /);
+    expect(out).toMatch(/\n\s+1  2026-11-02 09:00 UTC\s+00:02:0\d\s+40\s+3 /);
+    expect(out).toMatch(/\n\s+3  2026-11-02 09:0\d UTC\s+[\d:]+\s+47\s+4 /);
     expect(out).toMatch(/Evenness across traverses \(χ² test of homogeneity, \d types × 3 traverses\): X² = [\d.]+, df = \d+, p = [\de.-]+: the types are NOT spread alike across traverses\./);
     expect(out).toMatch(/Traverse 3 has more Betula than the rest \(30 counted/);
     expect(out).toMatch(/\[double-press\] #\d+ and #\d+: key "c" \(Corylus\) twice within 60 ms/);
@@ -65,8 +65,8 @@ describe('exine audit --plain', () => {
     // seq 3 is the first Alnus of traverse 1.
     correctLevel(join(dir, 'level.jsonl'), { type: 'void', grain: 3, traverse: null, reason: 'pressed a for b' });
     const out = (await runExine(['audit', 'level.jsonl', '--plain'], dir)).stdout;
-    expect(out).toMatch(/Corrections \(1\)\n  #\d+ \d{4}-\d\d-\d\d \d\d:\d\d  void of grain #3 \(Alnus, traverse 1\): "pressed a for b"/);
-    expect(out).toMatch(/\n\s+1  2026-11-02 09:00\s+[\d:]+\s+39\s+3\s+[\d.]+\s+3\s+0\s+1/);
+    expect(out).toMatch(/Corrections \(1\)\n  #\d+ \d{4}-\d\d-\d\d \d\d:\d\d UTC  void of grain #3 \(Alnus, traverse 1\): "pressed a for b"/);
+    expect(out).toMatch(/\n\s+1  2026-11-02 09:00 UTC\s+[\d:]+\s+39\s+3\s+[\d.]+\s+3\s+0\s+1/);
   });
 
   it('--double-press and --gap change the thresholds; bad values are usage errors', async () => {

@@ -2,6 +2,7 @@ import { DEFAULT_RULES } from '../../src/rules/rule-set.js';
 import { existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { FORMAT_VERSION } from '../../src/model/events.js';
 import { oneLine, runExine } from '../helpers/run-exine.js';
 import { tempDir } from '../helpers/temp-dir.js';
 import { TINY_KEYMAP, grain, openPayload, sessionText } from '../helpers/levels.js';
@@ -68,12 +69,12 @@ describe('bad input gets one clear line, the right exit code, and changes nothin
   });
 
   it('a session file from a future format version is refused by every command, untouched', async () => {
-    const dir = folderWith({ 'future.jsonl': sessionText([{ ...openPayload(), format: 4 }, grain('Alnus')]) });
+    const dir = folderWith({ 'future.jsonl': sessionText([{ ...openPayload(), format: FORMAT_VERSION + 1 }, grain('Alnus')]) });
     const before = snapshot(dir);
     for (const args of [['count', 'future.jsonl'], ['summary', 'future.jsonl'], ['export', 'future.jsonl'], ['verify', 'future.jsonl']]) {
       const run = await runExine(args, dir);
       expect(run.code, args.join(' ')).toBe(1);
-      expect(oneLine(run)).toMatch(/line 1 is session format 4, written by a newer exine \(this one reads format 3\); update exine/);
+      expect(oneLine(run)).toMatch(new RegExp(`line 1 is session format ${FORMAT_VERSION + 1}, written by a newer exine \\(this one reads format ${FORMAT_VERSION}\\); update exine`));
     }
     expect(snapshot(dir)).toEqual(before);
   });

@@ -16,7 +16,7 @@ function demoCopy() {
 describe('the read-only commands on the demo core', () => {
   it('verify: every demo level is intact; an edit is caught with its line number', async () => {
     const dir = demoCopy();
-    for (const f of readdirSync(dir)) {
+    for (const f of readdirSync(dir).filter((name) => name.endsWith('.jsonl'))) {
       const run = await runExine(['verify', f], dir);
       expect(run.code, f).toBe(0);
       expect(run.stdout).toMatch(/intact, \d+ lines, chain verified/);
@@ -56,10 +56,10 @@ describe('the read-only commands on the demo core', () => {
 
   it('export --format wide: one row per level in depth order, one column per taxon', async () => {
     const dir = demoCopy();
-    const run = await runExine(['export', ...readdirSync(dir).reverse(), '--format', 'wide'], dir);
+    const run = await runExine(['export', ...readdirSync(dir).filter((f) => f.endsWith('.jsonl')).reverse(), '--format', 'wide'], dir);
     expect(run.code).toBe(0);
     const rows = parse(run.stdout, { columns: true }) as Record<string, string>[];
-    expect(rows.map((r) => r.depth)).toEqual(['12', '36', '60', '84', '108']);
+    expect(rows.map((r) => r.depth)).toEqual(['12', '36', '48', '60', '84', '108']);
     expect(Number(rows[0]!.pollen_sum)).toBeGreaterThanOrEqual(500);
     const taxa = Object.keys(rows[0]!).slice(12);
     expect(taxa.slice(0, 3)).toEqual(['Quercus', 'Betula', 'Alnus']);
@@ -67,6 +67,22 @@ describe('the read-only commands on the demo core', () => {
     expect(rows[0]).toMatchObject({ conc_unit: 'grains/cm3' });
     expect(Number(rows[0]!.concentration)).toBeCloseTo((Number(rows[0]!.pollen_sum) / Number(rows[0]!.markers)) * 12500, 0);
     expect(Number(rows[0]!.influx)).toBeCloseTo(Number(rows[0]!.concentration) * 0.05, 1);
+  });
+
+  it('the demo is a core folder: planned depths, a level on two slides, a finished core export refused for the half-counted level', async () => {
+    const dir = demoCopy();
+    const { readCoreFolder } = await import('../../src/core/read-core.js');
+    const core = readCoreFolder(dir);
+    expect(core.config).toMatchObject({ site: 'Kestrel Mere', core: 'KM-1' });
+    expect(core.planned).toEqual([24, 72, 96]);
+    expect(core.levels.map((l) => [l.depth, l.outside, l.state?.slides.length])).toEqual([[12, false, 1], [36, false, 1], [48, false, 1], [60, false, 2], [84, false, 1], [108, false, 1]]);
+    expect(core.levels[4]?.overrides).toContain('precision');
+    const refused = await runExine(['export', '.'], dir);
+    expect(refused.stderr).toMatch(/km1-084cm\.jsonl \(not finished\)/);
+    const rows = parse((await runExine(['export', '.', '--include-unfinished', '--values', 'percent'], dir)).stdout, { columns: true }) as Record<string, string>[];
+    // 48 cm is the mislabelled slide: birch and pine where its neighbours are oak forest.
+    expect(rows.map((r) => Math.round(Number(r['sum:Mixed oak forest'])))).toEqual([9, 30, 2, 38, 24, 0]);
+    expect(rows[3]).toMatchObject({ slides: 'KM1-060-A;KM1-060-B' });
   });
 
   it('keys draws the layout of a bundled keymap', async () => {

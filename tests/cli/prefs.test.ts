@@ -28,6 +28,18 @@ describe('exine prefs', () => {
     expect((await runExine(['prefs'], undefined, e)).stdout).toMatch(/^rare\s+2\s+default/m);
   });
 
+  it('lines its columns up, a long analyst name shown whole', async () => {
+    const e = env();
+    await runExine(['prefs', 'set', 'analyst', 'Dr. Somebody With A Very Long Name'], undefined, e);
+    const lines = (await runExine(['prefs'], undefined, e)).stdout.split('\n').filter((l) => /^(bell|rare|break|keymap|analyst) /.test(l));
+    expect(lines).toHaveLength(5);
+    expect(lines.find((l) => l.startsWith('analyst'))).toMatch(/Dr\. Somebody With A Very Long Name\s+set\s/);
+    const column = (l: string) => l.search(/ (set|default) {2}/);
+    expect(new Set(lines.map(column)).size).toBe(1);
+    const help = (l: string) => l.search(/(set {4}|default)  \S/);
+    expect(new Set(lines.map(help)).size).toBe(1);
+  });
+
   it.each([
     [['prefs', 'set', 'bell', 'loud'], /bell must be on or off, not "loud"/],
     [['prefs', 'set', 'rare', '0'], /rare must be a whole number from 1 to 100/],

@@ -62,7 +62,7 @@ describe('stop-rule flags', () => {
     [['--rule-mode', 'some'], /--rule-mode must be all or any, not "some"/],
     [['--conc-error', '0.1'], /--conc-error needs the marker spike: --tablets, --per-tablet and --volume or --mass/],
     [['--tablets', '2', '--per-tablet', '20000', '--volume', '1', '--mass', '2'], /give --volume \(cm³\) or --mass \(g\), not both/],
-    [['--per-tablet-sd', '-1', '--tablets', '1', '--per-tablet', '5', '--volume', '1'], /option '--per-tablet-sd' needs a value \(a value starting with "-" is written --flag=-1\)/],
+    [['--per-tablet-sd', '-1', '--tablets', '1', '--per-tablet', '5', '--volume', '1'], /--per-tablet-sd cannot be negative \("-1"\)/],
     [['--per-tablet-sd=-1', '--tablets', '1', '--per-tablet', '5', '--volume', '1'], /--per-tablet-sd must be a number of 0 or more, not "-1"/],
   ])('exine count %j is a usage error that names the flag, and creates nothing', async (flags, message) => {
     const dir = tempDir();

@@ -46,7 +46,7 @@ describe('summary and audit of a level on two slides', () => {
     const text = (await runExine(['audit', 'level.jsonl', '--plain'], dir)).stdout;
     expect(text).toMatch(/level T-1 · depth 10 · slides A, B · analyst/);
     expect(text).toMatch(/\nSlides\n  A\s+from traverse\s+1  3 grains\n  B\s+from traverse\s+2  3 grains\n/);
-    expect(text).toMatch(/\n\s+#  slide\s+start \(UTC\)/);
+    expect(text).toMatch(/\n\s+#  slide\s+start/);
     expect(text).toMatch(/\n\s+1  A\s+2026-11-02/);
     expect(text).toMatch(/\n\s+2  B\s+2026-11-02/);
     expect(text).toMatch(/\n\s+3  B\s+2026-11-02/);

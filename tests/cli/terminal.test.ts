@@ -1,6 +1,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { FORMAT_VERSION } from '../../src/model/events.js';
 import { isProcessRunning } from '../../src/io/process-info.js';
 import { scanLog } from '../../src/log/scan-log.js';
 import { readLevel, resumeLevel } from '../../src/session/session-files.js';
@@ -48,7 +49,7 @@ describe('exine count in a terminal', () => {
     expect(await t.exited()).toBe(0);
     const events = scanLog(readFileSync(join(dir, 'l.jsonl'))).events;
     expect(events[0]).toMatchObject({
-      format: 3,
+      format: FORMAT_VERSION,
       rules: { targetSum: null, precision: { halfWidth: 40, share: 30, taxa: null }, markers: 2, mode: 'all' },
       spike: { tablets: 1, perTablet: 10000, perTabletSd: null, volume: 0.5, mass: null, accumulationRate: null },
     });

@@ -5,7 +5,7 @@ import { parseKeymap } from '../../src/keymap/parse-keymap.js';
 import { bindingsOf, keyLabel, roleOf, type Keymap } from '../../src/keymap/keymap.js';
 import { checkKeymapValue } from '../../src/keymap/parse-keymap.js';
 import { levelTable } from '../../src/stats/level-table.js';
-import { longRows, wideTable } from '../../src/export/level-export.js';
+import { LONG_COLUMNS, longRows, wideTable } from '../../src/export/level-export.js';
 import { levelSummary } from '../../src/export/level-summary.js';
 import { levelStats } from '../../src/stats/level-stats.js';
 import { evaluateRules } from '../../src/rules/evaluate-rules.js';
@@ -96,10 +96,10 @@ describe('groups of the keymap\'s own, with roles', () => {
     const calluna = long.find((r) => r[5] === 'Calluna');
     expect(calluna?.slice(6, 8)).toEqual(['dwarf shrubs', 'yes']);
     // The marker row has no concentration of its own; the others do.
-    expect(long.find((r) => r[5] === 'Eucalyptus (exotic)')?.[17]).toBeNull();
-    expect(long.find((r) => r[5] === 'Calluna')?.[17]).toBe(2500);
+    expect(long.find((r) => r[5] === 'Eucalyptus (exotic)')?.[LONG_COLUMNS.indexOf('concentration')]).toBeNull();
+    expect(long.find((r) => r[5] === 'Calluna')?.[LONG_COLUMNS.indexOf('concentration')]).toBe(2500);
     const wide = wideTable([{ state, source: 'x.jsonl' }]);
-    expect(wide.columns.slice(11)).toEqual(['Betula', 'Cyperaceae', 'Poaceae', 'Calluna', 'HdV-18', 'Pre-Quaternary spores', 'Eucalyptus (exotic)', 'Broken grain']);
+    expect(wide.columns.slice(wide.columns.indexOf('influx') + 1)).toEqual(['Betula', 'Cyperaceae', 'Poaceae', 'Calluna', 'HdV-18', 'Pre-Quaternary spores', 'Eucalyptus (exotic)', 'Broken grain']);
   });
 
   it('a level keeps its copy: groups, roles and key order read back from line 1', () => {

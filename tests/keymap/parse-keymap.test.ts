@@ -20,14 +20,14 @@ describe('keymap files', () => {
     expect(lowland.sum).toEqual(['trees', 'shrubs', 'herbs']);
     const keypad = loadKeymap('keypad').keymap;
     expect(Object.keys(keypad.keys).every((k) => '0123456789.+-*/'.includes(k))).toBe(true);
-    expect(keypad.actions).toEqual({ undo: '0', traverse: 'enter', note: '.', help: '?', newType: '=' });
+    expect(keypad.actions).toEqual({ undo: '0', traverse: 'enter', note: '.', help: '?', newType: '=', cf: "'" });
     // The file's order, home row first, whatever a JS object does with digit keys.
     expect(keypad.order.slice(0, 3)).toEqual(['4', '5', '6']);
   });
 
   it('defaults the actions to Backspace, Tab, Enter, ? (help) and = (new type)', () => {
     const keymap = ok('{"name":"x","keys":{"q":{"taxon":"Quercus","group":"trees"}}}');
-    expect(keymap.actions).toEqual({ undo: 'backspace', traverse: 'tab', note: 'enter', help: '?', newType: '=' });
+    expect(keymap.actions).toEqual({ undo: 'backspace', traverse: 'tab', note: 'enter', help: '?', newType: '=', cf: "'" });
   });
 
   it('a keymap written with a taxon on ? or = keeps it; that action then has no key unless given one', () => {

@@ -70,6 +70,9 @@ for (const v of [
   { ...stamp, type: 'repair', damage: 'torn', line: 5, cutBytes: 10, backup: 'x.bak' },
   { ...stamp, type: 'rules', rules: { targetSum: 300, precision: { halfWidth: 5, share: 10, taxa: ['Alnus'] }, mode: 'all' }, spike: { tablets: 1, perTablet: 9666, perTabletSd: null, volume: 1, mass: null, accumulationRate: null } },
   { ...stamp, type: 'void', grain: null, traverse: 2, reason: 'r' },
+  { ...stamp, type: 'slide', slide: 'B', traverse: 9 },
+  { ...stamp, type: 'traverse-undo', of: 4, traverse: 3 },
+  { ...stamp, type: 'reopen', reason: 'a type missed at first' },
   { ...stamp, type: 'note', text: 't', grain: null, stage: { x: 1, y: 2.5 } },
 ]) {
   const list = templates.get(v.type as string) ?? [];

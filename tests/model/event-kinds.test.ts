@@ -32,6 +32,9 @@ const AFTER_CLOSE: { readonly [K in EventType]: readonly [EventPayload, boolean]
   grain: [grain('Alnus'), false],
   undo: [{ type: 'undo', of: 4 }, false],
   traverse: [{ type: 'traverse', traverse: 2 }, false],
+  // Points at a traverse line, which this level has none of: the traverse-undo tests (fold, audit) cover it.
+  'traverse-undo': null,
+  reopen: [{ type: 'reopen', reason: 'two more traverses for Tilia' }, false],
   note: [{ type: 'note', text: 'folded grain', grain: 3, stage: null }, false],
   taxon: [{ type: 'taxon', taxon: 'Quercus', group: 'trees', key: 'q' }, false],
   rules: [{ type: 'rules', rules: DEFAULT_RULES, spike: null }, false],

@@ -82,13 +82,25 @@ describe('the fold of a level', () => {
       fc.property(keys, (presses) => {
         let state = foldEvents(open, TINY_KEYMAP, []);
         const model: string[] = [];
+        // What undo takes back: the last grain that counts, or a traverse change made after it.
+        const done: ('grain' | 'tab')[] = [];
         let traverses = 1;
         for (const press of splitRaw(presses.join(''))) {
           const d = decide(state, resolveKey(TINY_KEYMAP, press));
           if (d.kind === 'record') state = applyEvent(state, { ...d.payload, seq: state.lastSeq + 1, at: at(state.lastSeq + 1) } as SessionEvent);
-          if (press.kind === 'char' && TINY_KEYMAP.keys[press.char]) model.push(TINY_KEYMAP.keys[press.char]!.taxon);
-          if (press.kind === 'backspace') model.pop();
-          if (press.kind === 'tab') traverses++;
+          if (press.kind === 'char' && TINY_KEYMAP.keys[press.char]) {
+            model.push(TINY_KEYMAP.keys[press.char]!.taxon);
+            done.push('grain');
+          }
+          if (press.kind === 'backspace') {
+            const last = done.pop();
+            if (last === 'grain') model.pop();
+            if (last === 'tab') traverses--;
+          }
+          if (press.kind === 'tab') {
+            traverses++;
+            done.push('tab');
+          }
         }
         const expected: Record<string, number> = {};
         for (const t of model) expected[t] = (expected[t] ?? 0) + 1;

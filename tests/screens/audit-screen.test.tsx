@@ -128,7 +128,7 @@ describe('the audit screen', () => {
       const lines = (await ui.shows(/2 flags to review · 3 corrections/)).split('\n');
       expect(lines.length).toBeLessThan(rows);
       for (const line of lines) expect([...line].length).toBeLessThanOrEqual(columns);
-      if (rows === 45) expect(ui.frame().match(/^.\s+\d+ \d\d:\d\d:\d\d/gm)?.length).toBe(12);
+      if (rows === 45) expect(ui.frame().match(/^.\s+\d+\s+\d\d:\d\d:\d\d/gm)?.length).toBe(12);
       ui.unmount();
     }
   });

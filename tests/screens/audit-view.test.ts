@@ -56,7 +56,7 @@ describe('the audit screen view', () => {
   it('selects the first traverse and lists its events, with what became of each grain', () => {
     const v = auditScreenView(readOf(LEVEL), START_UI, SIZE);
     const [title, first, second] = v.top.slice(4);
-    expect(textOf(title!)).toMatch(/^ {3}# start {5}time grain type/);
+    expect(textOf(title!)).toMatch(/^ {3}# start {8}time grain type/);
     expect(textOf(first!)).toMatch(/^▶ {2}1 09:00:05 /);
     expect(first?.spans[0]).toMatchObject({ inverse: true, bold: true });
     expect(textOf(second!)).toMatch(/^ {3}2 09:00:20 /);
@@ -77,7 +77,7 @@ describe('the audit screen view', () => {
     const picked = v.body.lines.filter((l) => textOf(l).startsWith('▶'));
     expect(picked.map(textOf)).toEqual(['▶ #9 09:00:31 Corylus (t2)']);
     expect(picked[0]?.spans[0]?.inverse).toBe(true);
-    expect(textOf(v.body.lines[1]!)).toBe('new here: Corylus, Poaceae');
+    expect(textOf(v.body.lines[1]!)).toBe('new types: Corylus, Poaceae');
   });
 
   it('the overview takes the table’s room: sittings with their timeline, then the corrections', () => {
@@ -88,7 +88,7 @@ describe('the audit screen view', () => {
     expect(v.body).toMatchObject({ height: detailRoom + tableRoom + 3, clip: false });
     const body = v.body.lines.map(textOf);
     expect(body[0]).toBe('Sittings, flags and corrections (f: back)');
-    expect(body[1]).toMatch(/^sitting 1: 2026-11-02 09:00–09:00:40 · counting 00:00:\d\d$/);
+    expect(body[1]).toMatch(/^sitting 1: 2026-11-02 09:00 UTC–09:00:40 · counting 00:00:\d\d$/);
     expect(body[2]).toMatch(/^ {2}09:00 [█ ░▁-▇·]+ 09:00$/);
     expect(body.at(-1)).toBe('#12 void of grain #4 (Alnus, traverse 1): "slipped"');
   });
@@ -146,5 +146,16 @@ describe('the scroll window', () => {
     expect(scrollWindow(items, 0, 4)).toEqual({ shown: [0, 1, 2, 3], offset: 0 });
     expect(scrollWindow(items, 5, 4)).toEqual({ shown: [3, 4, 5, 6], offset: 3 });
     expect(scrollWindow(items, 9, 4)).toEqual({ shown: [6, 7, 8, 9], offset: 6 });
+  });
+});
+
+describe('the audit prompt at 80 columns', () => {
+  it('a long refusal (the lock holder, the lock file) takes a third line instead of being cut; the event list gives that line up', () => {
+    const message = `not recorded: /home/analyst/cores/kestrel-mere/km-1/levels/km1-084cm.jsonl is already open in pid 4242 (exine count) on lab-pc-2; close it there first (lock file: km1-084cm.jsonl.lock)`;
+    const short = auditScreenView(readOf(LEVEL), START_UI, { columns: 80, rows: 24 });
+    const long = auditScreenView(readOf(LEVEL), ui({ message }), { columns: 80, rows: 24 });
+    expect([short.promptHeight, long.promptHeight]).toEqual([2, 3]);
+    expect(long.body.height).toBe(short.body.height - 1);
+    expect(long.body.lines.length).toBeLessThanOrEqual(long.body.height);
   });
 });

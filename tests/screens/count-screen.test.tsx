@@ -95,7 +95,7 @@ describe('the counting screen', () => {
     copyFileSync(join(import.meta.dirname, '../../demo-sessions/km1-084cm.jsonl'), path);
     const s = await screenFor(path);
     const frame = await s.shows(/Kestrel Mere KM-1 · level KM1-84 · depth 84/);
-    for (const part of [/traverse 6 · sitting 2/, /Key Taxon/, /Pollen sum 236\n/, /Mark   17\*Indet   3\*/, /Stop if all · sum≥300/, /±4 ≥10% 5\.7\/4\s+\+244/, /cover \.983\/\.98\s+met/, /markers 17\/40\s+\+320/, /conc 174k\/cm³ ±25%/, /Types found: 15/, /16 since new/, /A   Ilex aquifolium    shrub      1/, /Last recorded/, /#289 sitting 2 started/, /Bksp undo · Tab trav · Enter note · = new · \? help · \^F finish · \^C quit/]) {
+    for (const part of [/traverse 6 · sitting 2/, /Key Taxon/, /Pollen sum 236\n/, /Marks  17\*Indet   3\*/, /Stop if all · sum≥300/, /half-width ≤ 4 points\n/, /  ≥10% now 5\.7\s+\+244/, /cover \.983\/\.98\s+met/, /markers 17\/40\s+\+320/, /conc 174k\/cm³ ±25%/, /Types found: 15/, /16 since new/, /A   Ilex aquifolium    shrub      1/, /Last recorded/, /#289 sitting 2 started/, /Bksp undo · Tab trav · Enter note · = new · ' cf · \? help · \^F fin · \^C quit/]) {
       expect(frame).toMatch(part);
     }
     expect(frame.split('\n').length).toBeLessThan(24);
@@ -116,7 +116,7 @@ describe('the counting screen', () => {
     expect(state.recent.at(-1)?.type).toBe('finish');
     const again = resumeLevel(s.path);
     again.writer.close();
-    expect(again.notices.join()).toMatch(/this level was marked finished on \d{4}-\d\d-\d\d/);
+    expect(again.notices.join()).toMatch(/this level is finished \d{4}-\d\d-\d\d: open read-only/);
   });
 
   it('keeps what opening found (a repaired tail) on screen while counting goes on', async () => {
@@ -144,12 +144,12 @@ describe('the counting screen', () => {
     await until(() => {
       // The screen's smallest height, 12 lines, where 24 rows drew 23.
       expect(s.frame().split('\n').length).toBeLessThanOrEqual(12);
-      expect(s.frame()).toMatch(/more taxa not shown/);
+      expect(s.frame()).toMatch(/taxa hidden/);
     });
     size.rows = 40;
     stdout.emit('resize');
     await until(() => {
-      expect(s.frame()).not.toMatch(/more taxa not shown/);
+      expect(s.frame()).not.toMatch(/taxa hidden/);
       expect(s.frame()).toMatch(/Lycopodium/);
     });
     // A terminal that reports 0 x 0 (some pseudo-terminals do) is drawn at 80 x 24.

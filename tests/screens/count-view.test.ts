@@ -11,7 +11,7 @@ import { readLevel, resumeLevel } from '../../src/session/session-files.js';
 import { TINY_KEYMAP, grain, openPayload, sessionText } from '../helpers/levels.js';
 import { tempDir } from '../helpers/temp-dir.js';
 
-const snapshotOf = (state: LevelState, over: Partial<Snapshot> = {}): Snapshot => ({ state, message: null, notice: null, readOnly: null, closed: false, mode: null, ...over });
+const snapshotOf = (state: LevelState, over: Partial<Snapshot> = {}): Snapshot => ({ state, message: null, notice: null, readOnly: null, closed: false, mode: null, misses: 0, ...over });
 
 function viewOf(state: LevelState, over: Partial<CountViewInput> = {}, snap: Partial<Snapshot> = {}): CountScreenView {
   return countScreenView({ snapshot: snapshotOf(state, snap), columns: 80, rows: 24, now: Date.parse(state.sittingStartedAt), rareThreshold: 2, breakMinutes: null, ...over });
@@ -120,9 +120,9 @@ describe('the counting screen view', () => {
     ]);
     expect(columnHeight(column!.panels, v.main.gap)).toBeLessThanOrEqual(v.main.height);
     expect(v.main.table.lines.length).toBeLessThanOrEqual(v.main.height);
-    expect(textOf(v.main.table.lines.at(-1)!)).toMatch(/^… \d+ more taxa not shown/);
+    expect(textOf(v.main.table.lines.at(-1)!)).toMatch(/^… \d+ taxa hidden, \d+ counted/);
     expect(v.heading.length + v.main.height + v.status.height + 1).toBe(v.height);
-    expect(textOf(v.keys)).toBe('Bksp undo · Tab trav · Enter note · = new · ? help · ^F finish · ^C quit');
+    expect(textOf(v.keys)).toBe("Bksp undo · Tab trav · Enter note · = new · ' cf · ? help · ^F fin · ^C quit");
   });
 
   it('at 140x45 a second column holds the rare types and recent events, with blank lines between panels', () => {
@@ -136,7 +136,7 @@ describe('the counting screen view', () => {
     expect(v.main.columns[1]?.marginLeft).toBe(2);
     for (const c of v.main.columns) expect(columnHeight(c.panels, v.main.gap)).toBeLessThanOrEqual(v.main.height);
     // A tall terminal shows every taxon.
-    expect(v.main.table.lines.map(textOf).join('\n')).not.toMatch(/more taxa not shown/);
+    expect(v.main.table.lines.map(textOf).join('\n')).not.toMatch(/taxa hidden/);
     expect(textOf(v.keys)).toMatch(/^Backspace undo · Tab traverse · /);
   });
 
@@ -144,10 +144,10 @@ describe('the counting screen view', () => {
     const state = demoState();
     const start = Date.parse(state.sittingStartedAt);
     const early = viewOf(state, { now: start + 19 * 60_000, breakMinutes: 20 });
-    expect(textOf(early.heading[1]!)).toBe('traverse 6 · sitting 1 · 00:19:00');
+    expect(textOf(early.heading[1]!)).toBe('traverse 6 · sitting 1 since 13:10 UTC · 00:19:00');
     expect(early.rings.breaks).toBe(0);
     const late = viewOf(state, { now: start + 25 * 60_000, breakMinutes: 20 });
-    expect(textOf(late.heading[1]!)).toBe('traverse 6 · sitting 1 · 00:25:00 · time to rest your eyes (20 min)');
+    expect(textOf(late.heading[1]!)).toBe('traverse 6 · sitting 1 since 13:10 UTC · 00:25:00 · time to rest your eyes (20 min)');
     expect(late.heading[1]?.spans.at(-1)).toMatchObject({ bold: true, tone: 'warning' });
     expect(late.rings.breaks).toBe(1);
     expect(viewOf(state, { now: start + 45 * 60_000, breakMinutes: 20 }).rings.breaks).toBe(2);
@@ -164,7 +164,7 @@ describe('the counting screen view', () => {
     expect(textOf(row('Alnus'))).not.toMatch(/◀/);
     expect(row('Alnus').spans[0]).toMatchObject({ bold: false, tone: undefined });
     expect(row('Corylus').spans[0]?.tone).toBe('zero');
-    expect(v.rings).toEqual({ stop: 0, types: 2, breaks: 0 });
+    expect(v.rings).toEqual({ stop: 0, types: 2, breaks: 0, misses: 0 });
   });
 
   it('the status says, in order of weight: read-only, a line being typed, the last message, what opening found', () => {
@@ -179,10 +179,10 @@ describe('the counting screen view', () => {
     expect(typing.height).toBe(2);
     const readOnly = status({ readOnly: 'syncing l.jsonl to disk failed (EIO)', mode: { kind: 'new-type', text: 'Vio' } });
     expect(readOnly.line.spans[0]).toMatchObject({ text: 'READ-ONLY: syncing l.jsonl to disk failed (EIO)', tone: 'error', bold: true });
-    // A long status takes up to three lines, from the panels.
+    // A long status takes up to four lines, from the panels.
     const long = viewOf(state, {}, { message: { text: 'x'.repeat(400), tone: 'info' } });
-    expect(long.status.height).toBe(3);
-    expect(mainHeight(long)).toBe(mainHeight(viewOf(state)) - 2);
+    expect(long.status.height).toBe(4);
+    expect(mainHeight(long)).toBe(mainHeight(viewOf(state)) - 3);
   });
 
   it('the help takes the panels’ place, its title inverse', () => {

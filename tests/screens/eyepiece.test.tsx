@@ -153,7 +153,7 @@ describe('sound and breaks', () => {
     const opened = resumeLevel(made.path, { clock: () => new Date(Date.now() - 70 * 60_000) });
     const session = new CountingSession(opened.writer, opened.state);
     const quiet = await driveScreen(render(<CountScreen session={session} columns={100} rows={30} bell breakMinutes={50} />));
-    await quiet.shows(/sitting 2 · 01:10:0\d · time to rest your eyes \(50 min\)/);
+    await quiet.shows(/sitting 2 since \d\d:\d\d \S+ · 01:10:0\d · time to rest your eyes \(50 min\)/);
     // Already due when the screen opened: no bell for that, nor for the new type after it (a later frame: its effects ran).
     quiet.type('a');
     await quiet.shows(/Pollen sum 1/);
@@ -188,7 +188,7 @@ describe('layouts', () => {
     const lines = s.frame().split('\n');
     expect(lines.length).toBeLessThan(45);
     for (const line of lines) expect([...line].length).toBeLessThanOrEqual(140);
-    for (const part of [/Rare types \(≤2\)/, /1 Ilex aquifolium\s*\n.*  t4 @21\.7,93\.2 not in the key/, /⣀ types found · E\(Sₙ\) rarefied/, /Stop if all · sum≥300/, /Last recorded/, /Indeterminable\s+3 1% \*/]) {
+    for (const part of [/Rare types \(≤2\)/, /1 Ilex aquifolium\s*\n.*  t4 @21\.7,93\.2 not in the key/, /⣀ types found · E\(Sₙ\) rarefied/, /Stop if all · sum≥300/, /Last recorded/, /Indeterminable\s+3  1% \*/]) {
       expect(s.frame()).toMatch(part);
     }
     s.session.shutdown();

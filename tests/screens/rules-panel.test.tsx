@@ -69,15 +69,15 @@ describe('stop rules on the counting screen', () => {
       { precision: { halfWidth: 10, share: 20, taxa: null }, markers: 4, mode: 'all' },
       { spike: { tablets: 1, perTablet: 10000, perTabletSd: null, volume: 1, mass: null, accumulationRate: null } },
     );
-    expect(await s.shows(/Stop if all/)).toMatch(/±10 ≥20% –\/10\s+\?/);
+    expect(await s.shows(/Stop if all/)).toMatch(/half-width ≤ 10 points\n.*  ≥20% now –\s+\?/);
     s.type('aabbl');
     const first = await s.shows(/markers 1\/4\s+\+12/);
-    const early = /±10 ≥20% ([\d.]+)\/10\s+\+(\d+)/.exec(first);
+    const early = /≥20% now ([\d.]+)\s+\+(\d+)/.exec(first);
     expect(early).not.toBeNull();
     expect(first).toMatch(/conc 40\.0k\/cm³ ±\d+%/);
     s.type('ab'.repeat(50) + 'lll');
     const then = await s.shows(/markers 4\/4\s+met/);
-    const later = /±10 ≥20% ([\d.]+)\/10\s+met/.exec(then);
+    const later = /≥20% now ([\d.]+)\s+met/.exec(then);
     expect(later).not.toBeNull();
     expect(Number(later![1])).toBeLessThan(Number(early![1]));
     expect(then).toMatch(/STOP RULES MET at pollen sum 104/);

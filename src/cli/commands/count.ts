@@ -15,6 +15,7 @@ import { RULE_OPTIONS, rulesFromFlags, spikeFromFlags } from '../rule-flags.js';
 import { parsePref, type Preferences } from '../../prefs/pref-values.js';
 import { readPreferences } from '../../prefs/preferences.js';
 import type { Io } from '../io.js';
+import { checkedDepth } from '../depth-flag.js';
 
 const OPTIONS = {
   keymap: { type: 'string' },
@@ -27,6 +28,8 @@ const OPTIONS = {
   quiet: { type: 'boolean' },
   rare: { type: 'string' },
   break: { type: 'string' },
+  reopen: { type: 'string' },
+  'allow-negative-depth': { type: 'boolean' },
   ...RULE_OPTIONS,
 } as const;
 
@@ -73,7 +76,7 @@ export function openForCounting(
   cwd = process.cwd(),
 ): OpenedLevel {
   if (isCoreFolder(path)) return openInCore(path, flags, check, defaults, cwd);
-  const depth = finiteNumber('count', 'depth', flags.depth);
+  const depth = checkedDepth(finiteNumber('count', 'depth', flags.depth), flags['allow-negative-depth'] !== undefined);
   if (existsSync(path)) return resumeForCounting(path, flags, check, cwd);
   const { keymap } = loadKeymap(flags.keymap ?? defaults.keymap ?? DEFAULT_KEYMAP, cwd);
   const info: LevelInfo = {
@@ -106,6 +109,7 @@ export function resumeForCounting(path: string, flags: Record<string, string | u
   const keymap = flags.keymap ? loadKeymap(flags.keymap, cwd).keymap : null;
   // One read of the file: the checks run on the level as resume reads it, before it writes.
   return resumeLevel(path, {
+    reopen: flags.reopen,
     beforeWrite: (state) => {
       checkAgainstRecorded(path, state, given, keymap);
       const spike = spikeFromFlags(flags, state.spike ?? spikeBase);
@@ -138,10 +142,10 @@ export async function countCommand(args: string[], io: Io): Promise<number> {
   const { values, positionals } = parseFlags('count', args, OPTIONS);
   if (positionals.length !== 1) throw new UsageError('exine count: give one session FILE (see exine count --help)');
   const path = resolve(io.cwd, positionals[0] as string);
-  const { quiet, rare, break: rest, ...flags } = values;
+  const { quiet, rare, break: rest, 'allow-negative-depth': allowNegative, ...flags } = values;
   const { prefs } = readPreferences(io.env);
   const screen = screenOptions(prefs, { quiet, rare, break: rest });
-  const opened = openForCounting(path, flags as Record<string, string | undefined>, () => requireTerminal('count', io), prefs, io.cwd);
+  const opened = openForCounting(path, { ...(flags as Record<string, string | undefined>), ...(allowNegative ? { 'allow-negative-depth': '' } : {}) }, () => requireTerminal('count', io), prefs, io.cwd);
   drawLiveOnThisTerminal();
   const { runCountScreen } = await import('../../screens/run-count-screen.js');
   return runCountScreen(opened, screen);

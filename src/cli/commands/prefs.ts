@@ -16,7 +16,10 @@ export function prefsCommand(args: string[], io: Io): number {
   const [verb, name, ...rest] = positionals;
   if (verb === undefined || verb === 'show') {
     const { prefs, set, path } = readPreferences(io.env);
-    const lines = PREF_NAMES.map((n) => `${fit(n, 8)} ${fit(formatPref(n, prefs[n]), 20)} ${set.has(n) ? 'set   ' : 'default'}  ${PREF_HELP[n]}`);
+    // Columns as wide as their widest value: a long keymap path is shown whole and the rest stays aligned.
+    const values = PREF_NAMES.map((n) => formatPref(n, prefs[n]));
+    const valueWidth = Math.max(...values.map((v) => [...v].length));
+    const lines = PREF_NAMES.map((n, i) => `${fit(n, 8)} ${fit(values[i] as string, valueWidth)}  ${fit(set.has(n) ? 'set' : 'default', 7)}  ${PREF_HELP[n]}`);
     io.stdout.write(`${lines.join('\n')}\n(stored in ${path}; flags of exine count override these)\n`);
     return 0;
   }

@@ -4,6 +4,7 @@ import { levelSummary, type LevelSummary } from '../../export/level-summary.js';
 import { readLevel } from '../../session/session-files.js';
 import { ci, fit, plural, pct, right } from '../../text/cells.js';
 import { terminalJson, type Io } from '../io.js';
+import { localDateTime } from '../../text/local-time.js';
 import { parseFlags, positiveInteger } from '../parse-flags.js';
 
 const OPTIONS = {
@@ -31,7 +32,7 @@ function textReport(s: LevelSummary): string[] {
   const where = [s.site, s.core].filter(Boolean).join(' ');
   const lines = [
     `${where ? `${where} · ` : ''}level ${s.level}${s.depth === null ? '' : ` (depth ${s.depth})`} · ${s.slides.length > 1 ? 'slides' : 'slide'} ${s.slides.map((c) => c.slide ?? '–').join(', ')}${s.analyst ? ` · ${s.analyst}` : ''}`,
-    s.finishedAt ? `finished ${s.finishedAt.slice(0, 10)}` : 'not finished yet (counting in progress)',
+    s.finishedAt ? `finished ${localDateTime(s.finishedAt)}` : s.reopens ? 'reopened after finishing; not finished again yet' : 'not finished yet (counting in progress)',
     `pollen sum ${s.pollenSum} · ${plural(s.grains, 'grain')} · ${plural(s.types, 'type')} in the sum · ${plural(s.traverses, 'traverse')} · ${plural(s.sittings, 'sitting')}${s.voided ? ` · ${plural(s.voided, 'grain')} voided in the audit` : ''}`,
     ...(s.slides.length > 1 ? [`by slide: ${s.slides.map((c) => `${c.slide ?? '–'} ${plural(c.grains, 'grain')} (sum ${c.pollenSum}, from traverse ${c.firstTraverse})`).join(' · ')}`] : []),
     `groups: ${s.groupOrder.filter((g) => (s.groups[g] ?? 0) > 0 || s.sumGroups.includes(g))
@@ -40,7 +41,7 @@ function textReport(s: LevelSummary): string[] {
     '',
     `stop rules: ${s.ruleSet} — ${s.met ? 'MET' : s.grainsNeeded === null ? 'not met' : `not met (about ${s.grainsNeeded} more grains)`}`,
     ...s.rules.map((r) => `  ${fit(r.label, 22)} ${right(ruleValue(r.rule, r.value), 7)} of ${fit(ruleValue(r.rule, r.target), 6)} ${needText(r)}`),
-    ...(s.firstMet ? [`  first met at pollen sum ${s.firstMet.sum} (${s.firstMet.at})`] : []),
+    ...(s.firstMet ? [`  first met at pollen sum ${s.firstMet.sum} (${localDateTime(s.firstMet.at)})`] : []),
     '',
     `coverage ${fixed(s.coverage, 4)} (Chao & Jost 2012) · Good–Turing ${fixed(s.goodTuring, 4)} · grains since a new type ${s.sinceNewType}`,
     s.chao1
@@ -69,10 +70,11 @@ function textReport(s: LevelSummary): string[] {
       .filter((r) => r.count > 0)
       .map(
         (r) =>
-          `${fit(r.taxon, 22)} ${fit(r.group, 14)} ${right(String(r.count), 6)} ${right(pct(r.percent), 6)}  ${fit(ci(r.ciLow, r.ciHigh), 12)} ${fit(ci(r.exactLow, r.exactHigh), 12)} ${ci(r.simultaneousLow, r.simultaneousHigh)}${r.inSum ? '' : ' *'}`,
+          `${fit(r.taxon, 22)} ${fit(r.group, 14)} ${right(String(r.count), 6)} ${right(pct(r.percent), 6)}  ${fit(ci(r.ciLow, r.ciHigh), 12)} ${fit(ci(r.exactLow, r.exactHigh), 12)} ${ci(r.simultaneousLow, r.simultaneousHigh)}${r.inSum ? '' : ' *'}${r.cf ? `  (${r.cf} of them cf.)` : ''}`,
       ),
     '',
     '* outside the pollen sum: percent of the sum plus its own group',
+    ...(s.taxa.some((r) => r.cf) ? ['cf.: grains whose identification is probable, not certain; they count with their taxon'] : []),
   );
   return lines;
 }
