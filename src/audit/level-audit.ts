@@ -128,6 +128,9 @@ function pollenSumTable(countsBy: ReadonlyMap<number, ReadonlyMap<string, number
 }
 
 /** One row per traverse, every number from 1 to the current one included. */
+/** Rows for traverses with nothing in them, at most. */
+const MAX_EMPTY_TRAVERSES = 10_000;
+
 function traverseRows(walk: SittingWalk, countsBy: ReadonlyMap<number, ReadonlyMap<string, number>>, grains: GrainIndex, state: LevelState, events: readonly SessionEvent[]): TraverseRow[] {
   const groupOf = new Map<string, Group>(Object.values(state.keymap.keys).map((b) => [b.taxon, b.group]));
   const isType = (taxon: string) => isTypeRole(roleOf(state.keymap, groupOf.get(taxon) ?? 'other'));
@@ -153,7 +156,9 @@ function traverseRows(walk: SittingWalk, countsBy: ReadonlyMap<number, ReadonlyM
   for (const e of events) if (e.type === 'void' && e.traverse !== null && state.voids[e.seq]) standingTraverseVoid.set(e.traverse, { seq: e.seq, at: e.at, reason: e.reason });
 
   const numbers = new Set<number>(walk.traverses.keys());
-  for (let t = 1; t <= state.traverse; t++) numbers.add(t);
+  // Empty traverses get rows too, but a crafted file may jump to traverse 10^15: only so many.
+  const last = Math.min(state.traverse, numbers.size + MAX_EMPTY_TRAVERSES);
+  for (let t = 1; t <= last; t++) numbers.add(t);
   return [...numbers]
     .sort((a, b) => a - b)
     .map((t) => {

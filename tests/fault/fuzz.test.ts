@@ -7,7 +7,7 @@ import { tempDir } from '../helpers/temp-dir.js';
 // The bounded part of the fault suite; `npm run bench -- --only faults` runs thousands of cases.
 // A failure is a stack trace, an error not in one line, a hang over 5 s, a level that exine
 // wrote (or was given readable) and then cannot read, or a control character printed raw.
-const RUNS = 60;
+const RUNS = 40;
 
 async function holds(arbitrary: fc.Arbitrary<FaultCase>, runs: number, child = false) {
   const root = tempDir();

@@ -2,6 +2,7 @@ import { linkSync, readdirSync, readFileSync, symlinkSync, writeFileSync } from 
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { refuseOwnInput } from '../../src/io/same-file.js';
+import { writeCore } from '../helpers/core-json.js';
 import { grain, openPayload, sessionText } from '../helpers/levels.js';
 import { oneLine, runExine } from '../helpers/run-exine.js';
 import { tempDir } from '../helpers/temp-dir.js';
@@ -62,6 +63,16 @@ describe('an output that is one of the inputs', () => {
     expect(card.code).toBe(2);
     expect(oneLine(card)).toMatch(/exine keys: the output km\.txt is one of the files it reads/);
     expect(readFileSync(join(dir, 'km.txt'), 'utf8')).toBe(keymap);
+  });
+
+  it('a core export refuses to write over the core.json it reads, --force or not', async () => {
+    const dir = tempDir();
+    writeCore(dir);
+    const before = readFileSync(join(dir, 'core.json'), 'utf8');
+    const run = await runExine(['export', '.', '--out', 'core.json', '--force'], dir);
+    expect(run.code).toBe(2);
+    expect(oneLine(run)).toMatch(/exine export: the output core\.json is one of the files it reads/);
+    expect(readFileSync(join(dir, 'core.json'), 'utf8')).toBe(before);
   });
 
   it('the helper lets through an output that does not exist yet or is another file', () => {

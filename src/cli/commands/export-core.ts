@@ -1,6 +1,7 @@
 import { existsSync } from 'node:fs';
-import { basename, resolve } from 'node:path';
+import { basename, join, resolve } from 'node:path';
 import { ExineError } from '../../errors.js';
+import { CORE_FILE } from '../../core/core-file.js';
 import { readCoreFolder } from '../../core/read-core.js';
 import { coreMatrix, TAXA_COLUMNS, taxaRows } from '../../export/core-matrix.js';
 import { toCsv } from '../../export/csv-text.js';
@@ -30,7 +31,12 @@ export function exportCore(dir: string, values: ExportFlags, io: Io): number {
   if (unreadable.length) {
     throw new ExineError(`exine export: ${nameFiles(unreadable.map((l) => l.file))} cannot be read (${unreadable[0]?.error}); exine verify shows why, and nothing was exported`);
   }
-  if (values.out !== undefined) refuseOwnInput('export', values.out, core.levels.map((l) => l.path), io.cwd);
+  if (values.out !== undefined) {
+    // core.json is read too, and the wide matrix writes its taxa table beside the output.
+    const inputs = [...core.levels.map((l) => l.path), join(resolve(io.cwd, dir), CORE_FILE)];
+    refuseOwnInput('export', values.out, inputs, io.cwd);
+    if (format === 'wide') refuseOwnInput('export', taxaFileOf(values.out), inputs, io.cwd);
+  }
   if (core.levels.length === 0) throw new ExineError(`exine export: ${dir} has no level yet; count one with exine count ${dir} --depth D`);
   for (const l of core.levels) for (const w of l.warnings) io.stderr.write(`exine: ${w}\n`);
   const levels: ExportLevel[] = core.levels.map((l) => ({ state: l.state as NonNullable<typeof l.state>, source: l.file }));
