@@ -73,7 +73,10 @@ const result = await build({
   format: 'esm',
   // Beside the .cjs files, so that require('./x.cjs') finds them from every chunk.
   chunkNames: '[name]-[hash]',
-  define: { 'process.env.NODE_ENV': '"production"' },
+  // fetch: the layout engine's WebAssembly loader asks for it before it sees that its module is
+  // inline; reading Node's global fetch loads its HTTP client (undici), tens of milliseconds of a
+  // first frame. exine fetches nothing, so in the bundle fetch is undefined.
+  define: { 'process.env.NODE_ENV': '"production"', fetch: 'undefined' },
   // Ink loads React's devtools only when DEV=true; they are not installed.
   external: ['react-devtools-core'],
   // CommonJS inside ES modules still calls require(): for Node's own modules and the .cjs files.

@@ -61,7 +61,7 @@ function reopenLines(audit: LevelAudit): string[] {
 /** Grains per slide, when the level was counted on more than one. */
 function slideLines(state: LevelState): string[] {
   if (state.slides.length < 2) return [];
-  return ['', 'Slides', ...slideCounts(state).map((s) => `  ${fit(s.slide ?? '–', 12)}  from traverse ${right(String(s.firstTraverse), 3)}  ${plural(s.grains, 'grain')}`)];
+  return ['', 'Slides', ...slideCounts(state).map((s) => `  ${fit(s.slide ?? '–', Math.max(12, ...slideNames(state).map((n) => [...n].length)))}  from traverse ${right(String(s.firstTraverse), 3)}  ${plural(s.grains, 'grain')}`)];
 }
 
 /** The audit as text, for a lab notebook or an appendix. */
@@ -70,6 +70,7 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
   const where = [h.site, h.core].filter(Boolean).join(' ');
   // A slide column only for a level counted on more than one slide.
   const several = state.slides.length > 1;
+  const slideWidth = Math.max(5, ...slideNames(state).map((n) => [...n].length));
   const lines: string[] = [
     `Audit of ${name}`,
     `${where ? `${where} · ` : ''}level ${h.level}${h.depth === null ? '' : ` · depth ${h.depth}`} · ${state.slides.length > 1 ? 'slides' : 'slide'} ${slideNames(state).join(', ')} · analyst ${h.analyst ?? '–'}`,
@@ -87,10 +88,10 @@ export function plainReport(name: string, state: LevelState, audit: LevelAudit, 
     ...slideLines(state),
     '',
     'Traverses',
-    `  ${right('#', 3)}  ${several ? `${fit('slide', 6)}  ` : ''}${fit('start', 22)}  ${right('time', 8)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new', 3)}  ${right('undo', 4)}  ${right('void', 4)}  ${right('notes', 5)}  new types`,
+    `  ${right('#', 3)}  ${several ? `${fit('slide', slideWidth)}  ` : ''}${fit('start', 22)}  ${right('time', 8)}  ${right('grains', 6)}  ${right('types', 5)}  ${right('/min', 5)}  ${right('new', 3)}  ${right('undo', 4)}  ${right('void', 4)}  ${right('notes', 5)}  new types`,
     ...audit.traverses.map(
       (t) =>
-        `  ${right(String(t.traverse), 3)}  ${several ? `${fit(t.slide ?? '–', 6)}  ` : ''}${fit(day(t.start), 22)}  ${right(formatDuration(t.activeMs), 8)}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 3)}  ${right(String(t.undos), 4)}  ${right(String(t.voided), 4)}  ${right(String(t.notes), 5)}  ${traverseNews(t)}${t.voidedWhole ? `  VOIDED: ${t.voidedWhole.reason}` : ''}`,
+        `  ${right(String(t.traverse), 3)}  ${several ? `${fit(t.slide ?? '–', slideWidth)}  ` : ''}${fit(day(t.start), 22)}  ${right(formatDuration(t.activeMs), 8)}  ${right(String(t.grains), 6)}  ${right(String(t.types), 5)}  ${right(perMinute(t.perMinute), 5)}  ${right(String(t.newTypes.length), 3)}  ${right(String(t.undos), 4)}  ${right(String(t.voided), 4)}  ${right(String(t.notes), 5)}  ${traverseNews(t)}${t.voidedWhole ? `  VOIDED: ${t.voidedWhole.reason}` : ''}`,
     ),
     '  (types: pollen and spore types, as the counting screen counts them; markers, indeterminables and other taxa are listed apart)',
     '',

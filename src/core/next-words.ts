@@ -19,6 +19,13 @@ export function oddTexts(next: NextLevel): string[] {
   );
 }
 
+/** The flags in a few words, for a screen line that also holds the suggestion. */
+export function oddShort(next: NextLevel): string | null {
+  if (next.odd.length === 0) return null;
+  const depths = next.odd.map((o) => cm(o.depth)).join(', ');
+  return `? ${depths} ${next.odd.length === 1 ? 'is' : 'are'} unlike both neighbours: worth a second look`;
+}
+
 /** How the flags are judged, for the plain report. */
 export function yardstickText(next: NextLevel): string {
   if (next.median === null || next.threshold === null) return `neighbour distances: ${next.distances.length}; too few to judge an odd level (at least 3)`;

@@ -54,9 +54,9 @@ const LEVELS: readonly DemoLevel[] = [
     shares: { Quercus: 12, Betula: 12, Alnus: 6, Ulmus: 9, Pinus: 14, Corylus: 26, Salix: 3, Poaceae: 6, Cyperaceae: 3, Artemisia: 1, Filipendula: 2, Tilia: 0.6, Fraxinus: 0.4, Hedera: 0.3, Rumex: 0.4, Ranunculaceae: 0.3, Polypodium: 2, Pteridium: 1, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
   { file: 'km1-108cm.jsonl', depth: 108, sum: 501, finished: true, start: '2026-10-09T08:50:00.000Z', uneven: { taxon: 'Pinus', traverses: [1, 12], factor: 4 },
     shares: { Betula: 38, Pinus: 24, Salix: 6, Corylus: 3, Poaceae: 12, Cyperaceae: 8, Artemisia: 5, Amaranthaceae: 2, Rumex: 1, Sphagnum: 2, 'Lycopodium (exotic marker)': 12, 'Indet. corroded': 2, 'Indet. degraded': 1, 'Indet. concealed': 1 } },
-  // Last in the list so the levels above keep their seeds. A slide mislabelled at the bench: a birch-pine assemblage like 108 cm between two mixed oak forest levels. The core view flags it.
+  // Last in the list so the levels above keep their seeds. A slide mislabelled at the bench: pine, birch and steppe herbs between two levels of mixed oak forest. The core view flags it.
   { file: 'km1-048cm.jsonl', depth: 48, sum: 508, finished: true, start: '2026-10-10T09:00:00.000Z',
-    shares: { Betula: 36, Pinus: 27, Salix: 5, Corylus: 4, Quercus: 1, Poaceae: 11, Cyperaceae: 8, Artemisia: 5, Amaranthaceae: 2, Rumex: 1, Sphagnum: 2, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
+    shares: { Pinus: 44, Betula: 24, Artemisia: 9, Amaranthaceae: 5, Salix: 5, Cyperaceae: 5, Rumex: 2, Sphagnum: 2, 'Lycopodium (exotic marker)': 10, Indeterminable: 2 } },
 ];
 
 function buildLevel(level: DemoLevel, keymap: Keymap, seed: number): string {

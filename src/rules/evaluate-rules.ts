@@ -15,7 +15,7 @@ export const COVERAGE_FLOOR = 100;
 
 export interface RuleStatus {
   readonly rule: RuleName;
-  /** Short words for the screen: "pollen sum", "±3 pts ≥5%". */
+  /** Short words for the screen: "pollen sum", "half-width ≤ 3 points ≥5%". */
   readonly label: string;
   /** The current value, in the rule's unit; null when it cannot be computed yet. */
   readonly value: number | null;
@@ -42,7 +42,7 @@ function status(rule: RuleName, label: string, value: number | null, target: num
 function precision(rules: RuleSet, stats: LevelStats): RuleStatus | null {
   const p = rules.precision;
   if (!p) return null;
-  const label = p.taxa ? `±${shortNumber(p.halfWidth)} pts ${p.taxa.length === 1 ? p.taxa[0] : `${p.taxa.length} taxa`}` : `±${shortNumber(p.halfWidth)} pts ≥${shortNumber(p.share ?? 0)}%`;
+  const label = `half-width ≤ ${shortNumber(p.halfWidth)} points ${p.taxa ? (p.taxa.length === 1 ? p.taxa[0] : `${p.taxa.length} taxa`) : `≥${shortNumber(p.share ?? 0)}%`}`;
   const rows = stats.table.rows.filter((r) =>
     p.taxa ? p.taxa.includes(r.taxon) : r.inSum && r.percent !== null && r.percent >= (p.share ?? 0),
   );

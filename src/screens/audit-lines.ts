@@ -29,7 +29,9 @@ export function traverseHeading(width: number, withSlide = false): string {
 
 /** A traverse's row of the table: start, time, grains, types, rate, new types, undos, voids, notes; "empty" when it holds no grain. */
 export function traverseLine(t: TraverseRow, width = 80, withSlide = false): string {
-  const slide = withSlide ? ` ${fit(t.slide ?? '–', 5)}` : '';
+  // Slide labels differ at their end (KM1-060-A, KM1-060-B): a long one keeps its tail.
+  const label = t.slide ?? '–';
+  const slide = withSlide ? ` ${fit([...label].length > 10 ? `…${[...label].slice(-9).join('')}` : label, 10)}` : '';
   const mark = t.voidedWhole ? ' VOID' : t.empty ? (t.takenBack ? ` empty (taken back by #${t.takenBack})` : ' empty') : '';
   const time = right(formatDuration(t.activeMs).slice(3), 5);
   if (width >= 120) {

@@ -1,5 +1,5 @@
 import type { CoreModel } from '../core/core-model.js';
-import { oddTexts, suggestionText } from '../core/next-words.js';
+import { oddShort, suggestionText } from '../core/next-words.js';
 import type { OverviewRow } from '../core/overview.js';
 import type { Strip } from '../core/strips.js';
 import { levelFileName } from '../core/level-name.js';
@@ -114,11 +114,12 @@ export function coreScreenView(model: CoreModel, ui: CoreUi, size: { columns: nu
   const { shown, offset } = scrollWindow(model.rows, selected, bodyHeight);
   const lines = shown.map((r, i) => rowLine(r, offset + i, facts[offset + i] as RowFacts, cols, strips, offset + i === selected));
   if (model.rows.length === 0) lines.push(line('  no level and no planned depth yet: exine count DIR --depth N starts one', { tone: 'dim' }));
-  const odd = oddTexts(model.next);
-  const advice = [suggestionText(model.next), ...odd].join(' · ');
+  // A flag first: it asks for a check before the next count.
+  const odd = oddShort(model.next);
+  const advice = [odd, suggestionText(model.next)].filter(Boolean).join(' · ');
   const footer: Line[] = [
     ...detailLines(model, model.rows[selected]),
-    truncated(advice, { tone: odd.length ? 'warning' : 'accent' }),
+    truncated(advice, { tone: odd ? 'warning' : 'accent' }),
     truncated(ui.message ?? '', { tone: 'dim' }),
     truncated(`↑↓ select · Enter count this level · q quit${model.rows.length > bodyHeight ? ` · ${selected + 1}/${model.rows.length}` : ''}`, { tone: 'dim' }),
   ];

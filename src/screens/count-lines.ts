@@ -32,7 +32,8 @@ export function headingLines(state: LevelState, sittingMs: number, breakMinutes:
  * fold's rules-met / rules-unmet), never from a verdict of the screen's own.
  */
 export function stopBannerLine(state: LevelState, width: number): Line | null {
-  if (!state.rulesMet) return null;
+  // A finished level opened read-only has nothing more to stop.
+  if (!state.rulesMet || state.finishedAt) return null;
   const text = stopBanner(state.lastRulesMet?.sum ?? null);
   return truncated(text.length >= width ? text.slice(0, width) : text + ' '.repeat(width - text.length), { bold: true, inverse: true });
 }
@@ -83,7 +84,8 @@ export function statusArea(snapshot: Snapshot, width: number): { readonly height
 }
 
 /** The actions' keys on the last line, in short words below 100 columns. */
-export function keysLine(keymap: Keymap, width: number): Line {
+export function keysLine(keymap: Keymap, width: number, readOnly = false): Line {
+  if (readOnly) return truncated('read-only: no key counts · Ctrl-C quits', { tone: 'dim' });
   const a = keymap.actions;
   const text =
     width >= 100

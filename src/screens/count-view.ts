@@ -145,7 +145,7 @@ export function countScreenView(input: CountViewInput, facts: LevelFacts = level
     banner,
     main: mode?.kind === 'help' ? { kind: 'help', panel: { width, height: layout.mainHeight, lines: helpOverlay(state.keymap, width, layout.mainHeight) } } : panelsArea(state, facts, layout, rareThreshold),
     status,
-    keys: keysLine(state.keymap, width),
+    keys: keysLine(state.keymap, width, state.finishedAt !== null),
     rings: { stop: state.lastRulesMet?.seq ?? 0, types: facts.types.size, breaks, misses: snapshot.misses },
   };
 }

@@ -34,7 +34,7 @@ export function ruleLine(r: RuleStatus, room: number): string {
   // Wide panels get the full words, but no wider than a glance takes in.
   const width = Math.min(room, 34);
   const wide = width >= 30;
-  const label = wide ? r.label : r.rule === 'precision' ? r.label.replace(/ pts ?/, ' ') : SHORT[r.rule];
+  const label = wide ? r.label : SHORT[r.rule];
   const head = `${label} ${ruleValue(r.rule, r.value)}/${ruleValue(r.rule, r.target)}`;
   const tail = need(r);
   return head.length + 1 + tail.length <= width ? `${head}${right(tail, width - head.length)}` : fit(`${head} ${tail}`, width);
@@ -47,7 +47,7 @@ export function ruleLine(r: RuleStatus, room: number): string {
 export function ruleLines(r: RuleStatus, room: number): string[] {
   if (r.rule !== 'precision') return [ruleLine(r, room)];
   const width = Math.min(room, 34);
-  const scope = r.label.replace(/^±\S+ pts ?/, '');
+  const scope = r.label.replace(/^half-width ≤ \S+ points ?/, '');
   const head = `  ${scope} now ${ruleValue(r.rule, r.value)}`;
   const tail = need(r);
   return [fit(`half-width ≤ ${ruleValue(r.rule, r.target)} points`, width), head.length + 1 + tail.length <= width ? `${head}${right(tail, width - head.length)}` : fit(`${head} ${tail}`, width)];

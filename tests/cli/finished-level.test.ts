@@ -22,6 +22,7 @@ describe('a finished level', () => {
     const t = startInPty(['count', 'done.jsonl'], dir);
     await t.ready(/READ-ONLY: this level is finished/);
     expect(t.output()).toMatch(/FINISHED \d{4}-\d\d-\d\d \d\d:\d\d UTC · read-only/);
+    expect(t.output()).toMatch(/read-only: no key counts · Ctrl-C quits/);
     t.type('aab\t\x7f');
     t.type('\x03');
     expect(await t.exited()).toBe(0);
@@ -81,5 +82,12 @@ describe('flags at the eyepiece', () => {
     const allowed = await runExine(['count', 'n.jsonl', '--depth=-3', '--allow-negative-depth'], dir);
     expect(allowed.stderr).toMatch(/needs an interactive terminal/);
     expect(readdirSync(dir)).toEqual([]);
+  });
+});
+
+describe('the precision rule in words', () => {
+  it('summary writes its label whole: "half-width ≤ H points"', async () => {
+    const run = await runExine(['summary', new URL('../../demo-sessions/km1-084cm.jsonl', import.meta.url).pathname]);
+    expect(run.stdout).toMatch(/^ {2}half-width ≤ 4 points ≥10% +5\.\d+ of 4\.00 /m);
   });
 });

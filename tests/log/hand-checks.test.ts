@@ -74,6 +74,10 @@ for (const v of [
   { ...stamp, type: 'traverse-undo', of: 4, traverse: 3 },
   { ...stamp, type: 'reopen', reason: 'a type missed at first' },
   { ...stamp, type: 'note', text: 't', grain: null, stage: { x: 1, y: 2.5 } },
+  { ...stamp, type: 'slide', slide: 'KM1-012-B', traverse: 3 },
+  { ...stamp, type: 'traverse-undo', of: 4, traverse: 2 },
+  { ...stamp, type: 'reopen', reason: 'recount the last traverse' },
+  { ...stamp, type: 'grain', taxon: 'Tilia', traverse: 1, key: 't', cf: true },
 ]) {
   const list = templates.get(v.type as string) ?? [];
   if (list.length < 20) list.push(v);
@@ -112,6 +116,8 @@ describe('hand checks of session lines', () => {
     'property: the %s check accepts only what its zod schema accepts (fast-check)',
     (kind, schema, object) => {
       const check = HAND_CHECKS.get(kind) as (v: Record<string, unknown>) => boolean;
+      // The records are valid lines with a few fields changed: a kind with a hand check needs one here.
+      expect(templates.has(kind), `add a valid "${kind}" line to the templates of this test`).toBe(true);
       let accepted = 0;
       fc.assert(
         fc.property(recordsOf(kind, object), (v) => {

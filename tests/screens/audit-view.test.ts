@@ -53,6 +53,23 @@ describe('the audit screen view', () => {
     expect(v.top[1]?.spans[0]?.tone).toBeUndefined();
   });
 
+  it('gives each traverse its slide when the level was counted on more than one', () => {
+    const two: (readonly [EventPayload, number])[] = [
+      ...LEVEL.slice(0, 11),
+      [{ type: 'sitting', sitting: 2 }, 50_000],
+      [{ type: 'slide', slide: 'TM1-010-B', traverse: 3 }, 51_000],
+      [grain('Alnus', 3, 'a'), 55_000],
+    ];
+    const v = auditScreenView(readOf(two), START_UI, SIZE);
+    expect(textOf(v.top[0]!)).toBe('Audit · Test Mere TM-1 · level T-1 · depth 10 · slides TM1-010-A, TM1-010-B');
+    const [title, first, , third] = v.top.slice(4).map(textOf);
+    expect(title).toMatch(/ not slide\s*$/);
+    expect(first).toMatch(/^▶ {2}1 09:00:05 .* TM1-010-A/);
+    expect(third).toMatch(/^ {3}3 09:00:55 .* TM1-010-B/);
+    // The column is as wide as the screen allows; an 80-column screen keeps it.
+    expect(third!.length).toBeLessThanOrEqual(80);
+  });
+
   it('selects the first traverse and lists its events, with what became of each grain', () => {
     const v = auditScreenView(readOf(LEVEL), START_UI, SIZE);
     const [title, first, second] = v.top.slice(4);

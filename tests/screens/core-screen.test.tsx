@@ -74,6 +74,18 @@ describe('the core screen', () => {
     s.type('q');
   });
 
+  it('puts a level unlike both its neighbours first on the advice line', async () => {
+    const dir = tempDir();
+    const config = writeCore(dir, { depths: [10, 20, 30, 40, 50, 55, 60], rules: RULES });
+    const steady = (i: number) => ({ Alnus: 50 + i, Betula: 30, Corylus: 20 - i });
+    for (const [d, i] of [[10, 0], [20, 1], [40, 2], [50, 3], [60, 8]] as const) writeCoreLevel(dir, d, steady(i), { config, finish: true });
+    writeCoreLevel(dir, 30, { Poaceae: 70, Alnus: 30 }, { config });
+    const s = await screen(dir, 80, 24);
+    const frame = await s.shows(/\? 30 cm is unlike both neighbours: worth a second look · next: 55 cm/);
+    expect(frame).toMatch(/30cm\?\s+rules met/);
+    expect(frame).toMatch(/55cm◂\s+planned/);
+  });
+
   it('follows a file that changes while the view is open', async () => {
     const { dir, config } = core();
     const s = await screen(dir, 80, 24);

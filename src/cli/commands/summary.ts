@@ -40,7 +40,7 @@ function textReport(s: LevelSummary): string[] {
       .join(' · ')}`,
     '',
     `stop rules: ${s.ruleSet} — ${s.met ? 'MET' : s.grainsNeeded === null ? 'not met' : `not met (about ${s.grainsNeeded} more grains)`}`,
-    ...s.rules.map((r) => `  ${fit(r.label, 22)} ${right(ruleValue(r.rule, r.value), 7)} of ${fit(ruleValue(r.rule, r.target), 6)} ${needText(r)}`),
+    ...s.rules.map((r) => `  ${fit(r.label, Math.max(22, ...s.rules.map((q) => [...q.label].length)))} ${right(ruleValue(r.rule, r.value), 7)} of ${fit(ruleValue(r.rule, r.target), 6)} ${needText(r)}`),
     ...(s.firstMet ? [`  first met at pollen sum ${s.firstMet.sum} (${localDateTime(s.firstMet.at)})`] : []),
     '',
     `coverage ${fixed(s.coverage, 4)} (Chao & Jost 2012) · Good–Turing ${fixed(s.goodTuring, 4)} · grains since a new type ${s.sinceNewType}`,
