@@ -6,9 +6,10 @@ import { levelFileName } from '../core/level-name.js';
 import { fit, plural } from '../text/cells.js';
 import { compact } from '../text/numbers.js';
 import { formatDuration } from '../text/durations.js';
+import { wordWrap } from '../text/word-wrap.js';
 import { scrollWindow } from './audit-view.js';
 import { cellText, columnsFor, depthText, headingText, rowFacts, stripBar, stripScale, tableWidth, type Column, type RowFacts } from './core-lines.js';
-import { line, truncated, type Line, type Span } from './styled-line.js';
+import { line, textOf, truncated, type Line, type Span } from './styled-line.js';
 
 export interface CoreUi {
   readonly selected: number;
@@ -32,7 +33,6 @@ const STRIP_WIDTH = 8;
 /** Two strips at least beside the table, even at 80 columns. */
 const MIN_STRIP_ROOM = 2 * (STRIP_WIDTH + 1);
 const HEADING = 3;
-const FOOTER = 5;
 
 export function titleText(model: CoreModel): string {
   const counts = new Map<string, number>();
@@ -75,10 +75,10 @@ export function detailLines(model: CoreModel, row: OverviewRow | undefined): Lin
   if (!row) return [line(''), line('')];
   if (row.status === 'planned') {
     const file = row.depth === null ? '' : levelFileName(model.config.core, row.depth);
-    return [truncated(`${depthText(row.depth)} planned · no file yet · Enter creates ${file} with the core's keymap and rules`, { bold: true }), truncated(`rules: ${row.rulesText ?? ''}`, { tone: 'dim' })];
+    return [line(`${depthText(row.depth)} planned · no file yet · Enter creates ${file} with the core's keymap and rules`, { bold: true }), line(`rules: ${row.rulesText ?? ''}`, { tone: 'dim' })];
   }
   if (row.status === 'unreadable') {
-    return [truncated(`${row.file} cannot be read`, { bold: true, tone: 'error' }), truncated(row.integrity?.kind === 'damaged' ? row.integrity.message : '', { tone: 'error' })];
+    return [line(`${row.file} cannot be read`, { bold: true, tone: 'error' }), line(row.integrity?.kind === 'damaged' ? row.integrity.message : '', { tone: 'error' })];
   }
   const need = row.grainsNeeded === null ? 'grains needed unknown' : row.grainsNeeded === 0 ? 'rules met' : `${row.grainsNeeded} more grains of the sum needed`;
   const first = `${row.file} · ${row.status} · pollen sum ${row.pollenSum} · ${need} · rules: ${row.rulesText ?? ''}`;
@@ -92,7 +92,13 @@ export function detailLines(model: CoreModel, row: OverviewRow | undefined): Lin
   const integrity = row.integrity?.kind === 'torn' ? `torn last line (exine count repairs it)` : row.integrity?.kind === 'intact' && !row.integrity.closed ? 'last sitting not closed cleanly' : '';
   const outside = row.outside.length ? `own settings: ${row.outside.join(', ')}` : '';
   const second = [...facts, integrity, outside].filter(Boolean).join(' · ');
-  return [truncated(first, { bold: true }), truncated(second, { tone: row.outside.length || integrity ? 'warning' : undefined })];
+  return [line(first, { bold: true }), line(second, { tone: row.outside.length || integrity ? 'warning' : undefined })];
+}
+
+/** One styled line as the lines it takes at word breaks (at most `max`). */
+function wrapped(l: Line, width: number, max: number): Line[] {
+  const style = l.spans[0] ?? { text: '' };
+  return wordWrap(textOf(l), width, max).map((text) => truncated(text, { ...(style.bold ? { bold: true } : {}), ...(style.tone ? { tone: style.tone } : {}) }));
 }
 
 /** Everything the core screen shows, top to bottom, as plain values. */
@@ -109,19 +115,21 @@ export function coreScreenView(model: CoreModel, ui: CoreUi, size: { columns: nu
     { spans: [{ text: ` ${cols.map(headingText).join(' ')}`, bold: true }, ...heads.names], wrap: 'truncate-end' },
     { spans: [{ text: ` ${' '.repeat(tableWidth(cols) - 1)}` }, ...heads.scales], wrap: 'truncate-end' },
   ];
-  const bodyHeight = height - HEADING - FOOTER;
-  const selected = Math.min(Math.max(0, ui.selected), Math.max(0, model.rows.length - 1));
-  const { shown, offset } = scrollWindow(model.rows, selected, bodyHeight);
-  const lines = shown.map((r, i) => rowLine(r, offset + i, facts[offset + i] as RowFacts, cols, strips, offset + i === selected));
-  if (model.rows.length === 0) lines.push(line('  no level and no planned depth yet: exine count DIR --depth N starts one', { tone: 'dim' }));
+  // A message is never cut mid-sentence: the footer's lines wrap at word breaks, and the table gets what is left.
   // A flag first: it asks for a check before the next count.
   const odd = oddShort(model.next);
   const advice = [odd, suggestionText(model.next)].filter(Boolean).join(' · ');
+  const selected = Math.min(Math.max(0, ui.selected), Math.max(0, model.rows.length - 1));
+  const roomy = height >= 20;
   const footer: Line[] = [
-    ...detailLines(model, model.rows[selected]),
-    truncated(advice, { tone: odd ? 'warning' : 'accent' }),
-    truncated(ui.message ?? '', { tone: 'dim' }),
-    truncated(`↑↓ select · Enter count this level · q quit${model.rows.length > bodyHeight ? ` · ${selected + 1}/${model.rows.length}` : ''}`, { tone: 'dim' }),
+    ...detailLines(model, model.rows[selected]).flatMap((l) => wrapped(l, width, roomy ? 2 : 1)),
+    ...wrapped(line(advice, { tone: odd ? 'warning' : 'accent' }), width, roomy ? 3 : 1),
+    ...wrapped(line(ui.message ?? '', { tone: 'dim' }), width, roomy ? 2 : 1),
   ];
+  const bodyHeight = height - HEADING - footer.length - 1;
+  footer.push(truncated(`↑↓ select · Enter count this level · q quit${model.rows.length > bodyHeight ? ` · ${selected + 1}/${model.rows.length}` : ''}`, { tone: 'dim' }));
+  const { shown, offset } = scrollWindow(model.rows, selected, bodyHeight);
+  const lines = shown.map((r, i) => rowLine(r, offset + i, facts[offset + i] as RowFacts, cols, strips, offset + i === selected));
+  if (model.rows.length === 0) lines.push(line('  no level and no planned depth yet: exine count DIR --depth N starts one', { tone: 'dim' }));
   return { width, height, heading, body: { height: bodyHeight, lines }, footer };
 }

@@ -47,4 +47,20 @@ describe('the core view, as values', () => {
       for (const l of shown) expect([...l].length).toBeLessThanOrEqual(columns);
     }
   });
+
+  it('never cuts a message mid-sentence at 80 columns: the footer wraps at word breaks (a rule of the counting screen too)', () => {
+    const dir = tempDir();
+    const config = writeCore(dir, { depths: [2, 4, 6] });
+    writeCoreLevel(dir, 2, { Alnus: 12, Betula: 3 }, { config });
+    const model = coreModel(readCoreFolder(dir));
+    const view = coreScreenView(model, { ...START_CORE_UI, selected: 0 }, { columns: 80, rows: 24 });
+    const footer = view.footer.map(textOf);
+    expect(view.heading.length + view.body.height + view.footer.length).toBe(24);
+    for (const l of footer) {
+      expect([...l].length).toBeLessThanOrEqual(80);
+      expect(l.endsWith('…')).toBe(false);
+    }
+    // The advice (too few levels to compare) reads whole, over more than one line.
+    expect(footer.join(' ')).toMatch(/needed to compare/);
+  });
 });
