@@ -37,7 +37,14 @@ export function saturationLines(curve: SaturationCurve, width: number, plotRows:
   const room = plotWidth - String(curve.grains).length;
   const middle = room > since.length + 1 ? `${' '.repeat(Math.floor((room - since.length) / 2))}${since}` : '';
   const axis = `${' '.repeat(label)}0${middle}${right(String(curve.grains), plotWidth - middle.length)}`;
-  return [title, ...plot, fit(axis, width), ...(legend ? [fit('⣀ types found · E(Sₙ) rarefied', width)] : [])];
+  const key = legend ? legendFor(width) : null;
+  return [title, ...plot, fit(axis, width), ...(key === null ? [] : [fit(key, width)])];
+}
+
+// The longest legend that fits whole: a key cut short explains nothing.
+const LEGENDS = ['⣀ types found · E(Sₙ) rarefied', '⣀ found · E(Sₙ) rarefied', '⣀ found · E(Sₙ)'];
+export function legendFor(width: number): string | null {
+  return LEGENDS.find((l) => [...l].length <= width) ?? null;
 }
 
 export function saturationHeight(plotRows: number, legend: boolean): number {

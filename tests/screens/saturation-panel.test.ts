@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { stepPoints } from '../../src/screens/saturation-panel.js';
+import { legendFor, stepPoints } from '../../src/screens/saturation-panel.js';
 import { braillePlot } from '../../src/text/braille-plot.js';
 
 describe('the saturation plot of a long count', () => {
@@ -19,5 +19,17 @@ describe('the saturation plot of a long count', () => {
       }),
       { numRuns: 400 },
     );
+  });
+});
+
+describe('the curve legend', () => {
+  it('is the longest that fits whole, never cut (the side panel is about 22 columns at 80)', () => {
+    expect(legendFor(40)).toBe('⣀ types found · E(Sₙ) rarefied');
+    expect(legendFor(22)).toBe('⣀ found · E(Sₙ)');
+    expect(legendFor(10)).toBeNull();
+    for (let w = 1; w <= 60; w++) {
+      const l = legendFor(w);
+      if (l !== null) expect([...l].length).toBeLessThanOrEqual(w);
+    }
   });
 });
