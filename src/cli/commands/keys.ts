@@ -5,12 +5,10 @@ import { refuseOwnInput } from '../../io/same-file.js';
 import { writeFileAtomic } from '../../io/write-atomic.js';
 import { addTypesToKeymap, type AddedType } from '../../keymap/add-types.js';
 import { drawLayout } from '../../keymap/draw-layout.js';
-import { keyCardSvg, PAPER, type Paper } from '../../keymap/key-card.js';
 import { isBundledKeymap, loadKeymap, resolveKeymapPath } from '../../keymap/load-keymap.js';
 import { plural } from '../../text/cells.js';
 import type { Io } from '../io.js';
 import { parseFlags } from '../parse-flags.js';
-import { keysBuild, keysFromList } from './keys-make.js';
 
 /** The types a session added while counting, with the keys they got there. */
 async function addedTypesOf(sessionPath: string, cwd: string): Promise<AddedType[]> {
@@ -23,14 +21,16 @@ async function addedTypesOf(sessionPath: string, cwd: string): Promise<AddedType
   });
 }
 
-function writeCard(name: string, card: string, paperFlag: string | undefined, force: boolean, io: Io): number {
+// The card, the builder and the list reader load only for their own subcommands: `exine keys FILE` starts fast.
+async function writeCard(name: string, card: string, paperFlag: string | undefined, force: boolean, io: Io): Promise<number> {
+  const { keyCardSvg, PAPER } = await import('../../keymap/key-card.js');
   const paper = (paperFlag ?? 'a4').toLowerCase();
   if (!(paper in PAPER)) throw new UsageError(`exine keys: --paper must be ${Object.keys(PAPER).join(' or ')}, not "${paperFlag}"`);
   const ext = extname(card).toLowerCase();
   if (ext !== '.svg' && ext !== '.txt') throw new UsageError(`exine keys: --card must end in .svg (a drawing to print) or .txt (plain text), not "${card}"`);
   const { keymap, path } = loadKeymap(name, io.cwd);
   refuseOwnInput('keys', card, [path], io.cwd);
-  const body = ext === '.svg' ? keyCardSvg(keymap, paper as Paper) : `${drawLayout(keymap)}\n`;
+  const body = ext === '.svg' ? keyCardSvg(keymap, paper as keyof typeof PAPER) : `${drawLayout(keymap)}\n`;
   writeFileAtomic(resolve(io.cwd, card), body, force);
   io.stdout.write(`${card}: key card of ${keymap.name}${ext === '.svg' ? ` (${paper.toUpperCase()} landscape; print at 100%)` : ''}\n`);
   return 0;
@@ -38,8 +38,8 @@ function writeCard(name: string, card: string, paperFlag: string | undefined, fo
 
 export async function keysCommand(args: string[], io: Io): Promise<number> {
   const sub = args[0];
-  if (sub === 'new' || sub === 'edit') return keysBuild(sub, args.slice(1), io);
-  if (sub === 'from-list') return keysFromList(args.slice(1), io);
+  if (sub === 'new' || sub === 'edit') return (await import('./keys-make.js')).keysBuild(sub, args.slice(1), io);
+  if (sub === 'from-list') return (await import('./keys-make.js')).keysFromList(args.slice(1), io);
   const { values, positionals } = parseFlags('keys', args, {
     'add-types': { type: 'string' },
     card: { type: 'string' },
