@@ -1,6 +1,6 @@
 import { copyFileSync, lstatSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir, userInfo } from 'node:os';
-import { basename, join } from 'node:path';
+import { basename, dirname, join } from 'node:path';
 import { ExineError } from '../errors.js';
 import { SessionLock } from '../log/session-lock.js';
 
@@ -20,9 +20,11 @@ export function demoFolder(tmp = tmpdir()): string {
 }
 
 /**
- * A fresh copy of the bundled demo level in the demo folder, replacing the copy
- * of the last run and anything left beside it (a repair's backup, a stale lock):
- * every demo starts half-counted. Refused while an exine still counts the last copy.
+ * A fresh copy of the bundled demo core (its core.json and every level) in the
+ * demo folder, replacing the copy of the last run and anything left beside it
+ * (a repair's backup, a stale lock): every demo starts half-counted, and
+ * `exine core` on the folder shows the whole core. Returns the copy of `bundled`,
+ * the level to count. Refused while an exine still counts the last copy.
  */
 export function freshDemoCopy(bundled: string, tmp = tmpdir()): string {
   const dir = demoFolder(tmp);
@@ -38,7 +40,10 @@ export function freshDemoCopy(bundled: string, tmp = tmpdir()): string {
     for (const entry of readdirSync(dir)) {
       if (join(dir, entry) !== lock.path) rmSync(join(dir, entry), { recursive: true, force: true });
     }
-    copyFileSync(bundled, copy);
+    const core = dirname(bundled);
+    for (const entry of readdirSync(core)) {
+      if (entry === 'core.json' || entry.endsWith('.jsonl')) copyFileSync(join(core, entry), join(dir, entry));
+    }
   } finally {
     lock.release();
   }

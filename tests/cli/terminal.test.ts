@@ -150,6 +150,7 @@ describe('exine demo in a terminal', () => {
     expect(await t.exited()).toBe(0);
     const copy = join(demoFolder(tmp), 'km1-084cm.jsonl');
     expect(t.output()).toMatch(`the demo copy is ${copy}; the next exine demo starts afresh`);
+    expect(t.output()).toMatch(`the whole demo core is beside it: exine core ${demoFolder(tmp)}`);
     expect(readdirSync(tmp)).toEqual([basename(demoFolder(tmp))]);
     expect(readLevel(copy).state.grains).toBe(readLevel(bundled).state.grains + 2);
     expect(readFileSync(bundled).equals(before)).toBe(true);

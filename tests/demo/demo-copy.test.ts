@@ -19,7 +19,11 @@ describe('the demo copy', () => {
     writeFileSync(`${copy}.cut-2026-01-01.bak`, 'x');
     expect(freshDemoCopy(BUNDLED, tmp)).toBe(copy);
     expect(readFileSync(copy).equals(readFileSync(BUNDLED))).toBe(true);
-    expect(readdirSync(demoFolder(tmp))).toEqual([DEMO_LEVEL]);
+    // The whole core comes along (core.json and every level), and nothing else.
+    const bundledCore = readdirSync(DEMO_DIR).filter((f) => f === 'core.json' || f.endsWith('.jsonl')).sort();
+    expect(bundledCore).toContain('core.json');
+    expect(bundledCore.length).toBeGreaterThan(3);
+    expect(readdirSync(demoFolder(tmp)).sort()).toEqual(bundledCore);
     expect(readdirSync(tmp)).toHaveLength(1);
   });
 

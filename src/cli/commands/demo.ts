@@ -1,4 +1,4 @@
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { freshDemoCopy } from '../../demo/demo-copy.js';
 import { UsageError } from '../../errors.js';
 import { packageDir } from '../../io/package-dir.js';
@@ -22,5 +22,6 @@ export async function demoCommand(args: string[], io: Io): Promise<number> {
   const { runCountScreen } = await import('../../screens/run-count-screen.js');
   const code = await runCountScreen(opened, screenOptions(prefs, {}));
   io.stdout.write(`the demo copy is ${copy}; the next exine demo starts afresh (the bundled demo is unchanged)\n`);
+  io.stdout.write(`the whole demo core is beside it: exine core ${dirname(copy)}\n`);
   return code;
 }
