@@ -5,6 +5,7 @@ import type { Strip } from '../core/strips.js';
 import { fit, right } from '../text/cells.js';
 import { compact } from '../text/numbers.js';
 import type { Tone } from './styled-line.js';
+import { localDate } from '../text/local-time.js';
 
 /** A column of the level table: its heading, its width, and a row's cell with its tone. */
 export interface Column {
@@ -72,7 +73,7 @@ const ALL: readonly (Column & { keep: boolean })[] = [
   { name: 'sit', width: 3, keep: false, cell: (r) => c(r.sittings ? String(r.sittings) : '') },
   { name: 'time', width: 5, keep: true, cell: (r) => c(r.status === 'planned' || r.status === 'unreadable' ? '' : shortTime(r.countingMs)) },
   { name: 'analyst', width: 12, keep: false, cell: (r) => c(r.analyst ?? '') },
-  { name: 'last', width: 10, keep: false, cell: (r) => c(r.lastAt ? r.lastAt.slice(0, 10) : '') },
+  { name: 'last', width: 10, keep: false, cell: (r) => c(r.lastAt ? localDate(r.lastAt) : '') },
   { name: 'integrity', width: 9, keep: true, cell: (r) => integrityText(r) },
 ];
 

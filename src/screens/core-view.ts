@@ -7,6 +7,7 @@ import { fit, plural } from '../text/cells.js';
 import { compact } from '../text/numbers.js';
 import { formatDuration } from '../text/durations.js';
 import { wordWrap } from '../text/word-wrap.js';
+import { localDateTime } from '../text/local-time.js';
 import { scrollWindow } from './audit-view.js';
 import { cellText, columnsFor, depthText, headingText, rowFacts, stripBar, stripScale, tableWidth, type Column, type RowFacts } from './core-lines.js';
 import { line, textOf, truncated, type Line, type Span } from './styled-line.js';
@@ -87,7 +88,7 @@ export function detailLines(model: CoreModel, row: OverviewRow | undefined): Lin
     `${plural(row.sittings, 'sitting')}, ${formatDuration(row.countingMs)} counting`,
     `${plural(row.markers, 'marker')}, ${concentrationText(row)}`,
     row.analyst ? `analyst ${row.analyst}` : 'no analyst recorded',
-    row.lastAt ? `last ${row.lastAt.slice(0, 16).replace('T', ' ')}` : '',
+    row.lastAt ? `last ${localDateTime(row.lastAt)}` : '',
   ].filter(Boolean);
   const integrity = row.integrity?.kind === 'torn' ? `torn last line (exine count repairs it)` : row.integrity?.kind === 'intact' && !row.integrity.closed ? 'last sitting not closed cleanly' : '';
   const outside = row.outside.length ? `own settings: ${row.outside.join(', ')}` : '';

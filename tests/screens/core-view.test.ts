@@ -4,6 +4,7 @@ import { readCoreFolder } from '../../src/core/read-core.js';
 import { columnsFor, shortTime, stripBar, stripScale, tableWidth } from '../../src/screens/core-lines.js';
 import { coreScreenView, START_CORE_UI } from '../../src/screens/core-view.js';
 import { textOf } from '../../src/screens/styled-line.js';
+import { localDateTime, showTimesIn } from '../../src/text/local-time.js';
 import { writeCore } from '../helpers/core-json.js';
 import { writeCoreLevel } from '../helpers/core-levels.js';
 import { tempDir } from '../helpers/temp-dir.js';
@@ -62,5 +63,21 @@ describe('the core view, as values', () => {
     }
     // The advice (too few levels to compare) reads whole, over more than one line.
     expect(footer.join(' ')).toMatch(/needed to compare/);
+  });
+
+  it('shows the last count in local time with its zone (the files keep UTC)', () => {
+    const dir = tempDir();
+    const config = writeCore(dir, { depths: [2] });
+    writeCoreLevel(dir, 2, { Alnus: 12, Betula: 3 }, { config });
+    const model = coreModel(readCoreFolder(dir));
+    const lastAt = model.rows[0]?.lastAt as string;
+    showTimesIn('Asia/Tokyo');
+    try {
+      const footer = coreScreenView(model, { ...START_CORE_UI, selected: 0 }, { columns: 140, rows: 45 }).footer.map(textOf).join(' ');
+      expect(footer).toContain(`last ${localDateTime(lastAt, 'Asia/Tokyo')}`);
+      expect(localDateTime(lastAt, 'Asia/Tokyo').slice(0, 16)).not.toBe(lastAt.slice(0, 16).replace('T', ' '));
+    } finally {
+      showTimesIn(undefined);
+    }
   });
 });
