@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { scanLog } from '../log/scan-log.js';
 import { resumeLevel } from '../session/session-files.js';
 import { baseLevel, chained } from './fault-cases.js';
-import { seeded } from './kill-rounds.js';
+import { seededRandom } from '../demo/seeded-random.js';
 
 export interface DamageFigures {
   tornCases: number;
@@ -64,7 +64,7 @@ export function measureDamage(flips: number, seed = 3): DamageFigures & { lines:
         if (repairsExactly(root, Buffer.concat([bytes.subarray(0, from), Buffer.alloc(pad)]), from, grainsBefore(line))) f.nulRepaired++;
       }
     }
-    const random = seeded(seed);
+    const random = seededRandom(seed);
     for (let i = 0; i < flips; i++) {
       const at = Math.floor(random() * bytes.length);
       const flipped = Buffer.from(bytes);

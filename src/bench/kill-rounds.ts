@@ -7,6 +7,7 @@ import { scanLog } from '../log/scan-log.js';
 import { foldEvents } from '../model/fold.js';
 import type { OpenEvent } from '../model/events.js';
 import { resumeLevel } from '../session/session-files.js';
+import { seededRandom } from '../demo/seeded-random.js';
 
 const BIN = resolve(fileURLToPath(import.meta.url), '../../../bin/exine.js');
 // Trees only: every key is a grain in the pollen sum, so the sum on screen and the grains on disk compare one to one.
@@ -105,17 +106,6 @@ async function killRound(dir: string, file: string, fresh: boolean, random: Rand
   return { shown: Math.max(...sums()), start, keys };
 }
 
-/** A small seeded generator (mulberry32), so a run can be repeated. */
-export function seeded(seed: number): Random {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * `rounds` kill rounds, `perFile` on each level file (each round after the first
@@ -129,7 +119,7 @@ export async function killRounds(
 ): Promise<KillFigures> {
   const f: KillFigures = { rounds: 0, keysSent: 0, shown: 0, onDisk: 0, lost: 0, tornTails: 0, unreadable: 0, notResumed: 0, files: 0 };
   const lane = async (n: number, laneRounds: number) => {
-    const random = seeded(seed + 1000 * n);
+    const random = seededRandom(seed + 1000 * n);
     let file = '';
     let before = 0;
     const finishFile = () => {

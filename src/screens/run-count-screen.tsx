@@ -5,6 +5,7 @@ import type { LevelState } from '../model/level-state.js';
 import { levelTable } from '../stats/level-table.js';
 import { visible } from '../text/visible.js';
 import { CountScreen } from './count-screen.js';
+import { untilScreenEnds } from './screen-lifetime.js';
 
 /** What the terminal keeps after the screen: saved, or finished with the hash to write down, or only looked at. */
 function quitLine(path: string, state: LevelState, viewOnly: boolean): string {
@@ -17,8 +18,6 @@ function quitLine(path: string, state: LevelState, viewOnly: boolean): string {
   return viewOnly ? `${path} is finished and was opened read-only; nothing changed (${totals}; ${seal})` : `finished ${path}: ${totals}\n${seal} (write it down: exine verify shows it again)`;
 }
 
-const SIGNALS = { SIGINT: 2, SIGHUP: 1, SIGTERM: 15 } as const;
-
 /**
  * Run the counting screen until the analyst quits or a signal arrives. One
  * synchronous shutdown for every way out: close event, lock released, Ink
@@ -27,30 +26,11 @@ const SIGNALS = { SIGINT: 2, SIGHUP: 1, SIGTERM: 15 } as const;
 export async function runCountScreen(opened: OpenedLevel, options: { bell?: boolean; rareThreshold?: number; breakMinutes?: number | null } = {}): Promise<number> {
   const session = new CountingSession(opened.writer, opened.state, opened.notices, opened.unconfirmed);
   const instance = render(<CountScreen session={session} bell={options.bell ?? true} rareThreshold={options.rareThreshold ?? 2} breakMinutes={options.breakMinutes ?? null} />, { exitOnCtrlC: false, patchConsole: false });
-  let exitCode = 0;
-  const stop = (code: number) => {
+  const stop = () => {
     session.shutdown();
     instance.unmount();
-    exitCode = code;
   };
-  const handlers = Object.entries(SIGNALS).map(([signal, n]) => {
-    const handler = () => stop(128 + n);
-    process.once(signal, handler);
-    return [signal, handler] as const;
-  });
-  const onCrash = (error: unknown) => {
-    stop(1);
-    process.stderr.write(`exine: unexpected error, the session was closed: ${visible(String((error as Error)?.message ?? error))}\n`);
-    process.exit(1);
-  };
-  process.once('uncaughtException', onCrash);
-  try {
-    await instance.waitUntilExit();
-  } finally {
-    session.shutdown();
-    for (const [signal, handler] of handlers) process.off(signal, handler);
-    process.off('uncaughtException', onCrash);
-  }
+  const exitCode = await untilScreenEnds(() => instance.waitUntilExit(), stop, () => session.shutdown(), 'the session');
   // Printed after the screen, outside Ink: escaped here (a lock's host, a file name).
   for (const notice of opened.notices) process.stdout.write(`on opening: ${visible(notice)}\n`);
   for (const l of quitLine(session.path, session.getSnapshot().state, opened.writer.viewOnly === true).split('\n')) process.stdout.write(`${visible(l)}\n`);
