@@ -2,7 +2,7 @@ import { findNodeAtLocation, parseTree, type Node } from 'jsonc-parser';
 import { lineOf, parseStrictJson } from '../keymap/json-source.js';
 import { hasMarkerKey, type Keymap } from '../keymap/keymap.js';
 import { checkKeymapValue } from '../keymap/parse-keymap.js';
-import type { RuleSet } from '../rules/rule-set.js';
+import { normalRules, type RuleSet } from '../rules/rule-set.js';
 import { hasUnseen, visible } from '../text/visible.js';
 import { describeIssue } from '../validation/describe-issue.js';
 import { coreSchemaModule } from './deferred-core-schema.js';
@@ -144,16 +144,11 @@ export function parseCoreFile(text: string, source: string): CoreResult {
   if (!keymap.ok) return fail(lineAt(body, root, ['keymap']), keymap.message);
 
   const r = raw.rules;
-  const rules: RuleSet = {
-    targetSum: r.targetSum ?? null,
+  // A precision rule without named taxa holds every taxon of 5% or more, as on the command line.
+  const rules: RuleSet = normalRules({
+    ...r,
     precision: r.precision ? { halfWidth: r.precision.halfWidth, share: r.precision.taxa ? null : (r.precision.share ?? 5), taxa: r.precision.taxa ?? null } : null,
-    coverage: r.coverage ?? null,
-    plateau: r.plateau ?? null,
-    markers: r.markers ?? null,
-    concError: r.concError ?? null,
-    mode: r.mode ?? 'all',
-    minSum: r.minSum ?? null,
-  };
+  });
   const ruleLine = (field: string) => lineAt(body, root, ['rules', field]);
   if (r.precision?.share != null && r.precision.taxa) return fail(ruleLine('precision'), '"rules.precision" gives "share" and "taxa"; keep one');
   const { mode: _m, minSum: _s, ...each } = rules;
