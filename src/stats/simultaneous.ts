@@ -24,13 +24,39 @@ function poissonRange(lo: number, hi: number, lambda: number): number {
   return poissonCdf(hi, lambda) - (lo > 0 ? poissonCdf(lo - 1, lambda) : 0);
 }
 
+/** P(Y = k) for Y ~ Poisson(λ). */
+function poissonPmf(k: number, lambda: number): number {
+  if (k < 0) return 0;
+  if (lambda === 0) return k === 0 ? 1 : 0;
+  return Math.exp(k * Math.log(lambda) - lambda - gammaln(k + 1));
+}
+
+/** P(top − r + 1 ≤ Y ≤ top) for r = 1..4, from P(Y = top) by the pmf's own recurrence (no CDF calls). */
+function tailsBelow(top: number, lambda: number): [number, number, number, number] {
+  const sums: [number, number, number, number] = [0, 0, 0, 0];
+  let p = poissonPmf(top, lambda);
+  let sum = 0;
+  for (let r = 0; r < 4; r++) {
+    const k = top - r;
+    if (k >= 0) sum += p;
+    sums[r] = sum;
+    // P(Y = k − 1) = P(Y = k) · k / λ
+    p = k > 0 && lambda > 0 ? (p * k) / lambda : 0;
+  }
+  return sums;
+}
+
 /**
  * Mean, variance, third central moment and fourth cumulant of Y ~ Poisson(λ)
  * truncated to [b, a], from its factorial moments, and P(b ≤ Y ≤ a).
+ * The moments need P(a − r + 1 ≤ Y ≤ a) and P(b − r ≤ Y ≤ b − 1) for r = 1..4:
+ * sums of a few pmf terms, so each cell costs two CDF calls, not eighteen.
  */
 function truncatedPoisson(lambda: number, b: number, a: number) {
   const inside = poissonRange(b, a, lambda);
-  const mu = [1, 2, 3, 4].map((r) => lambda ** r * (1 - (poissonRange(a - r + 1, a, lambda) - poissonRange(b - r, b - 1, lambda)) / inside));
+  const upper = tailsBelow(a, lambda);
+  const lower = tailsBelow(b - 1, lambda);
+  const mu = [0, 1, 2, 3].map((i) => lambda ** (i + 1) * (1 - ((upper[i] as number) - (lower[i] as number)) / inside));
   const [m1, m2, m3, m4] = mu as [number, number, number, number];
   const variance = m2 + m1 - m1 ** 2;
   const third = m3 + m2 * (3 - 3 * m1) + (m1 - 3 * m1 ** 2 + 2 * m1 ** 3);
