@@ -120,4 +120,29 @@ describe('exine keys from-list', () => {
     expect((await runExine(['keys', 'from-list', 'taxa.txt', '--out', 'lab.json', '--force'], dir)).code).toBe(0);
     expect((await runExine(['keys', 'from-list', 'taxa.txt'], dir)).code).toBe(2);
   });
+
+  it('reads a built-in group as a lab writes it ("herb", "Spores"), and refuses a near miss instead of taking it out of the sum', () => {
+    const list = parseTaxonList('Pinus, Trees\nRumex, herb\nPteridium, Spores\nHdV-18, NPP\n', 'l.txt');
+    if (!list.ok) throw new Error(list.message);
+    const r = keymapFromList(list.entries, 'Fen', 'fen.json');
+    if (!r.ok) throw new Error(r.message);
+    const k = parseKeymap(r.text, 'fen.json');
+    if (!k.ok) throw new Error(k.message);
+    expect(Object.values(k.keymap.keys).map((b) => b.group)).toEqual(['trees', 'herbs', 'spores', 'NPP']);
+    expect(r.report.slice(0, 3)).toEqual([
+      'group "Trees" read as the built-in group trees',
+      'group "herb" read as the built-in group herbs',
+      'group "Spores" read as the built-in group spores',
+    ]);
+    const typo = parseTaxonList('Pinus, tres\n', 'l.txt');
+    if (!typo.ok) throw new Error(typo.message);
+    expect(keymapFromList(typo.entries, 'x', 'x.json', 'l.txt')).toEqual({
+      ok: false,
+      message: 'l.txt: line 1: group "tres" is not a built-in group; did you mean "trees"? For a group of your own, give its role in a third column (sum, outside, marker, indeterminable)',
+    });
+    // With a role given, the name is the analyst's own group, as written.
+    const own = parseTaxonList('Pinus, tres, sum\n', 'l.txt');
+    if (!own.ok) throw new Error(own.message);
+    expect(keymapFromList(own.entries, 'x', 'x.json').ok).toBe(true);
+  });
 });

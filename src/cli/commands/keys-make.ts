@@ -32,7 +32,7 @@ export function keysFromList(args: string[], io: Io): number {
   const out = resolve(io.cwd, values.out);
   refuseOwnInput('keys from-list', values.out, [positionals[0] as string], io.cwd);
   if (!values.force && existsSync(out)) throw new ExineError(`${values.out} already exists; add --force to replace it`);
-  const made = keymapFromList(list.entries, values.name ?? nameFrom(values.out), values.out);
+  const made = keymapFromList(list.entries, values.name ?? nameFrom(values.out), values.out, positionals[0] as string);
   if (!made.ok) throw new ExineError(made.message);
   writeFileAtomic(out, made.text, values.force === true);
   io.stdout.write(`${made.report.join('\n')}\n${values.out}: ${taxa(list.entries.length)} written; check it with exine keys ${values.out}\n`);
