@@ -7,7 +7,9 @@ const sc = (d: number) => d.toFixed(2);
 export function suggestionText(next: NextLevel): string {
   const s = next.suggestion;
   if (s.kind === 'none') return `next: ${s.reason}`;
-  const pair = `${cm(s.between.upper)} and ${cm(s.between.lower)}, the most dissimilar neighbours (squared chord ${sc(s.between.distance)})`;
+  // A flagged level is left out of the comparison: its distances may be an error, not a change.
+  const aside = next.odd.length ? `; pairs with ${next.odd.map((o) => cm(o.depth)).join(', ')} set aside` : '';
+  const pair = `${cm(s.between.upper)} and ${cm(s.between.lower)}, the most dissimilar neighbours (squared chord ${sc(s.between.distance)}${aside})`;
   if (s.kind === 'planned') return `next: ${cm(s.depth)}, planned between ${pair}`;
   return `next: no planned depth lies between ${pair}; the midpoint is ${cm(s.depth)}`;
 }

@@ -28,7 +28,7 @@ describe('exine core DIR --plain and --json', () => {
     expect(out).toMatch(/depth\s+status\s+sum\/target\s+need\s+sq\.ch\s+mark\s+conc\s+sit\s+time\s+analyst\s+last\s+integrity/);
     expect(out).toMatch(/ {3}30cm\?\s+rules met\s+100\/100\s+0\s+\d\.\d\d/);
     expect(out).toMatch(/ {3}55cm◂\s+planned\s+–\/100/);
-    expect(out).toMatch(/\nnext: 55 cm, planned between 50 cm and 60 cm, the most dissimilar neighbours \(squared chord \d\.\d\d\)\n/);
+    expect(out).toMatch(/\nnext: 55 cm, planned between 50 cm and 60 cm, the most dissimilar neighbours \(squared chord \d\.\d\d; pairs with 30 cm set aside\)\n/);
     expect(out).toMatch(/\nworth a second look: 30 cm is unlike both neighbours/);
     expect(out).toMatch(/neighbour distances: 5, median \d\.\d\d; a level is flagged when both its distances exceed/);
     expect(out).toMatch(/Strips: % of the pollen sum/);
