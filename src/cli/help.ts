@@ -89,10 +89,11 @@ Examples
   demo: `Usage
   exine demo
 
-Copies the half-counted demo level (demo-sessions/) into your demo folder
-under the temporary folder (exine-demo-USER) and opens it for counting. Each
-run starts from a fresh copy, replacing the last one; the path is printed on
-exit. The bundled demo files are never changed.`,
+Copies the demo core (demo-sessions/: core.json and every level) into your
+demo folder under the temporary folder (exine-demo-USER) and opens its
+half-counted level for counting. Each run starts from a fresh copy, replacing
+the last one. On exit it prints the copy's path and the command for the core
+view of the copy. The bundled demo files are never changed.`,
   audit: `Usage
   exine audit FILE [--plain] [--double-press MS] [--gap MIN]
 
