@@ -6,7 +6,8 @@ Usage
 Commands
   count FILE     count a level: creates FILE, or resumes it
   demo           count a fresh copy of the demo level (in the temp folder)
-  audit FILE     review a level traverse by traverse; correct it (--plain: a report)
+  audit FILE     review a level traverse by traverse; correct it (--plain:
+                 a report)
   summary FILE   statistics and stop-rule state of a level
   export FILE…   levels as CSV (long, wide, or their notes)
   verify FILE    check a session file's integrity chain
@@ -27,7 +28,8 @@ and details recorded in it.
 
 Options
   --keymap PATH|NAME  keymap for a new level (default: the keymap preference,
-                      else temperate-lowland; bundled: temperate-lowland, keypad)
+                      else temperate-lowland; bundled: temperate-lowland,
+                      keypad)
   --level L           level label (default: the file name)
   --depth D           depth of the level in the core (a number, e.g. cm);
                       with a core folder for FILE, the level to count
@@ -40,8 +42,10 @@ Options
                       and counting goes on on it (traverse numbers go on)
   --analyst A         who counts (default: the analyst preference)
   --quiet             no terminal bells (preference: bell)
-  --rare N            list types with at most N grains as rare (preference: rare)
-  --break MIN|off     remind to rest the eyes after MIN minutes (preference: break)
+  --rare N            list types with at most N grains as rare
+                      (preference: rare)
+  --break MIN|off     remind to rest the eyes after MIN minutes
+                      (preference: break)
   --reopen "REASON"   count on in a finished level (recorded with the reason);
                       without it a finished level opens read-only
   -h, --help          this help
@@ -72,11 +76,11 @@ Exotic marker spike (for concentration; recorded in FILE)
 Keys
   taxon keys count one grain each; Backspace undoes the last grain (right after
   a Tab: the traverse change); Tab starts the next traverse; ' then a taxon key
-  counts a cf. grain (probable, not certain); Enter writes a note on the last grain ("@12.4,88.1 cf.
-  Tilia" records the stage position); = adds a type that is not in the keymap
-  ("Ilex aquifolium, shrubs") and counts it; ? shows the keymap (the keymap may
-  move these); Ctrl-F then y marks the level finished and quits; Ctrl-C quits
-  (every grain is on disk already).
+  counts a cf. grain (probable, not certain); Enter writes a note on the last
+  grain ("@12.4,88.1 cf. Tilia" records the stage position); = adds a type
+  that is not in the keymap ("Ilex aquifolium, shrubs") and counts it; ? shows
+  the keymap (the keymap may move these); Ctrl-F then y marks the level
+  finished and quits; Ctrl-C quits (every grain is on disk already).
   When the stop rules are met the screen says STOP RULES MET and rings three
   bells; counting goes on until you finish.
 
@@ -162,7 +166,8 @@ Checks every line of a session file: valid JSON, consecutive seq, the hash
 chain, event fields, timestamps in order. Exit 0 when intact; exit 1 naming
 the first bad line and what is wrong.`,
   prefs: `Usage
-  exine prefs                  show every preference, its value and whether it is set
+  exine prefs                  show every preference, its value and whether
+                               it is set
   exine prefs set NAME VALUE   set one
   exine prefs unset NAME       back to the default
   exine prefs path             where they are stored
@@ -193,7 +198,8 @@ inherit them. core.json may be edited by hand; every command checks it again.
 
 Options of init
   --site S, --core C  names recorded in every level (required)
-  --keymap PATH|NAME  keymap copied into core.json (default: the keymap preference)
+  --keymap PATH|NAME  keymap copied into core.json (default: the keymap
+                      preference)
   --depths A:B:STEP | D1,D2,…  planned depths, e.g. 4:200:8
   --target, --precision, --coverage, --plateau, --markers, --conc-error,
   --rule-mode, --min-sum   default stop rules, as for exine count

@@ -42,7 +42,7 @@ describe('exine audit --plain', () => {
     expect(out).toMatch(/^Audit of level\.jsonl\n/);
     expect(out).toMatch(/level T-1 · depth 10 · slide TM1-010-A · analyst A\. Counter/);
     expect(out).toMatch(/keymap "tiny" · counted 2026-11-02 09:00 UTC to 2026-11-02 09:\d\d UTC · not finished/);
-    expect(out).toMatch(/integrity: intact: level\.jsonl: intact, 1\d\d lines, chain verified/);
+    expect(out).toMatch(/integrity: level\.jsonl: intact, 1\d\d lines, chain verified/);
     expect(out).toMatch(/\n\s+1  2026-11-02 09:00 UTC\s+00:02:0\d\s+40\s+3 /);
     expect(out).toMatch(/\n\s+3  2026-11-02 09:0\d UTC\s+[\d:]+\s+47\s+4 /);
     expect(out).toMatch(/Evenness across traverses \(χ² test of homogeneity, \d types × 3 traverses\): X² = [\d.]+, df = \d+, p = [\de.-]+: the types are NOT spread alike across traverses\./);
