@@ -64,8 +64,10 @@ export function rowLine(row: OverviewRow, index: number, facts: RowFacts, cols: 
   return { spans: selected ? spans.map((s) => ({ ...s, inverse: true })) : spans, wrap: 'truncate-end' };
 }
 
-function concentrationText(r: OverviewRow): string {
+function concentrationText(r: OverviewRow, model: CoreModel): string {
   const c = r.concentration;
+  // The core has its marker batch; the sample's volume or mass is given per level, so say how.
+  if (!c && model.config.markerBatch !== null) return 'no sample volume yet (exine count --volume or --mass adds it)';
   if (!c || c.value === null) return c ? 'concentration: no marker yet' : 'no spike data';
   const err = c.relativeError === null ? '' : ` ±${(100 * c.relativeError).toFixed(0)}%`;
   return `${compact(c.value)} ${c.unit}${err}`;
@@ -86,7 +88,7 @@ export function detailLines(model: CoreModel, row: OverviewRow | undefined): Lin
   const facts = [
     plural(row.slides, 'slide'),
     `${plural(row.sittings, 'sitting')}, ${formatDuration(row.countingMs)} counting`,
-    `${plural(row.markers, 'marker')}, ${concentrationText(row)}`,
+    `${plural(row.markers, 'marker')}, ${concentrationText(row, model)}`,
     row.analyst ? `analyst ${row.analyst}` : 'no analyst recorded',
     row.lastAt ? `last ${localDateTime(row.lastAt)}` : '',
   ].filter(Boolean);
@@ -123,7 +125,7 @@ export function coreScreenView(model: CoreModel, ui: CoreUi, size: { columns: nu
   const selected = Math.min(Math.max(0, ui.selected), Math.max(0, model.rows.length - 1));
   const roomy = height >= 20;
   const footer: Line[] = [
-    ...detailLines(model, model.rows[selected]).flatMap((l) => wrapped(l, width, roomy ? 2 : 1)),
+    ...detailLines(model, model.rows[selected]).flatMap((l) => wrapped(l, width, roomy ? 3 : 1)),
     ...wrapped(line(advice, { tone: odd ? 'warning' : 'accent' }), width, roomy ? 3 : 1),
     ...wrapped(line(ui.message ?? '', { tone: 'dim' }), width, roomy ? 2 : 1),
   ];

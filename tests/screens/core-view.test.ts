@@ -80,4 +80,16 @@ describe('the core view, as values', () => {
       showTimesIn(undefined);
     }
   });
+
+  it('says how to give the sample volume of a level made without one in a core with a marker batch', () => {
+    const dir = tempDir();
+    const config = writeCore(dir, { depths: [2] });
+    expect(config.markerBatch).not.toBeNull();
+    writeCoreLevel(dir, 2, { Alnus: 12, Betula: 3 }, { config });
+    const model = coreModel(readCoreFolder(dir));
+    const row = model.rows[0];
+    const footer = coreScreenView(model, { ...START_CORE_UI, selected: 0 }, { columns: 140, rows: 45 }).footer.map(textOf).join(' ');
+    expect(row?.concentration).toBeNull();
+    expect(footer).toContain('no sample volume yet (exine count --volume or --mass adds it)');
+  });
 });
