@@ -6,6 +6,7 @@ import { formatDuration } from '../text/durations.js';
 import { localClock, localDateTime, zoneOf } from '../text/local-time.js';
 import { line, truncated, type Line } from './styled-line.js';
 import { stopBanner } from './rules-panel.js';
+import { wordWrap } from '../text/word-wrap.js';
 
 /** The level heading and the traverse, sitting and break line. */
 export function headingLines(state: LevelState, sittingMs: number, breakMinutes: number | null, breakDue: boolean): Line[] {
@@ -49,22 +50,7 @@ function promptOf(mode: InputMode | null): string | null {
 
 /** Lines a text takes when wrapped at word breaks to `width` columns, as the terminal shows it. */
 export function wrappedHeight(text: string, width: number): number {
-  let lines = 1;
-  let used = 0;
-  for (const word of text.split(' ')) {
-    const n = [...word].length;
-    if (used === 0) used = n;
-    else if (used + 1 + n <= width) used += 1 + n;
-    else {
-      lines++;
-      used = n;
-    }
-    while (used > width) {
-      lines++;
-      used -= width;
-    }
-  }
-  return lines;
+  return wordWrap(text, width).length;
 }
 
 /** The status under the panels: read-only reason, a typed line, the last message, or what opening found. */
