@@ -17,6 +17,17 @@ const keysOf = (taxa: string[]) => {
   return r.assigned.map((a) => `${a.taxon}=${a.key} (${a.why})`);
 };
 
+/** A list made into a keymap and read back as a person's keymap file. */
+function keymapOfList(text: string, name: string, out: string) {
+  const list = parseTaxonList(text, 'l.txt');
+  if (!list.ok) throw new Error(list.message);
+  const r = keymapFromList(list.entries, name, out);
+  if (!r.ok) throw new Error(r.message);
+  const k = parseKeymap(r.text, out);
+  if (!k.ok) throw new Error(k.message);
+  return { r, k };
+}
+
 describe('the from-list key rule', () => {
   // Each case: the list in order, and the keys and reasons the README's rule gives by hand.
   it.each([
@@ -74,12 +85,7 @@ describe('taxon lists', () => {
   });
 
   it('makes a keymap that reads back, its own groups with their roles, and says which taxon got which key and why', () => {
-    const list = parseTaxonList('Pinus, trees\nPoaceae, herbs\nCalluna, dwarf shrubs, sum\nHdV-18, NPP\nEucalyptus, exotic, marker\n', 'l.txt');
-    if (!list.ok) throw new Error(list.message);
-    const r = keymapFromList(list.entries, 'Bog', 'bog.json');
-    if (!r.ok) throw new Error(r.message);
-    const k = parseKeymap(r.text, 'bog.json');
-    if (!k.ok) throw new Error(k.message);
+    const { r, k } = keymapOfList('Pinus, trees\nPoaceae, herbs\nCalluna, dwarf shrubs, sum\nHdV-18, NPP\nEucalyptus, exotic, marker\n', 'Bog', 'bog.json');
     expect(k.keymap.order).toEqual(['p', 'o', 'c', 'h', 'e']);
     expect(k.keymap.groups.find((g) => g.name === 'dwarf shrubs')?.role).toBe('sum');
     expect(k.keymap.groups.find((g) => g.name === 'NPP')?.role).toBe('outside');
@@ -122,12 +128,7 @@ describe('exine keys from-list', () => {
   });
 
   it('reads a built-in group as a lab writes it ("herb", "Spores"), and refuses a near miss instead of taking it out of the sum', () => {
-    const list = parseTaxonList('Pinus, Trees\nRumex, herb\nPteridium, Spores\nHdV-18, NPP\n', 'l.txt');
-    if (!list.ok) throw new Error(list.message);
-    const r = keymapFromList(list.entries, 'Fen', 'fen.json');
-    if (!r.ok) throw new Error(r.message);
-    const k = parseKeymap(r.text, 'fen.json');
-    if (!k.ok) throw new Error(k.message);
+    const { r, k } = keymapOfList('Pinus, Trees\nRumex, herb\nPteridium, Spores\nHdV-18, NPP\n', 'Fen', 'fen.json');
     expect(Object.values(k.keymap.keys).map((b) => b.group)).toEqual(['trees', 'herbs', 'spores', 'NPP']);
     expect(r.report.slice(0, 3)).toEqual([
       'group "Trees" read as the built-in group trees',
