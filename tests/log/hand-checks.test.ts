@@ -102,6 +102,21 @@ function recordsOf(kind: string, schema: z.ZodObject): fc.Arbitrary<Record<strin
 const objectOf = (o: unknown): z.ZodObject => ('shape' in (o as object) ? (o as z.ZodObject) : ((o as { def: { in: z.ZodObject } }).def.in ?? o) as z.ZodObject);
 const kinds = eventSchema.options.map((o) => [(objectOf(o).shape.type as z.ZodLiteral).value as string, o as z.ZodType, objectOf(o)] as const);
 
+/** Runs a hand check on generated values and holds every value it accepts to the schema; how many it accepted. */
+function acceptedOnlyAsSchema<T>(values: fc.Arbitrary<T>, check: (v: T) => boolean, schema: z.ZodType, numRuns: number): number {
+  let accepted = 0;
+  fc.assert(
+    fc.property(values, (v) => {
+      if (check(v)) {
+        accepted++;
+        expect(schema.safeParse(v).success).toBe(true);
+      }
+    }),
+    { numRuns },
+  );
+  return accepted;
+}
+
 describe('hand checks of session lines', () => {
   it('exist only for kinds the schema knows', () => {
     const known = new Set(kinds.map(([k]) => k));
@@ -118,16 +133,7 @@ describe('hand checks of session lines', () => {
       const check = HAND_CHECKS.get(kind) as (v: Record<string, unknown>) => boolean;
       // The records are valid lines with a few fields changed: a kind with a hand check needs one here.
       expect(templates.has(kind), `add a valid "${kind}" line to the templates of this test`).toBe(true);
-      let accepted = 0;
-      fc.assert(
-        fc.property(recordsOf(kind, object), (v) => {
-          if (check(v)) {
-            accepted++;
-            expect(schema.safeParse(v).success).toBe(true);
-          }
-        }),
-        { numRuns: 3000 },
-      );
+      const accepted = acceptedOnlyAsSchema(recordsOf(kind, object), check, schema, 3000);
       // Otherwise the property held only because nothing passed.
       expect(accepted).toBeGreaterThan(100);
     },
@@ -158,16 +164,7 @@ describe('the hand check of a keymap shape', () => {
   );
 
   it('property: accepts only what the zod shape accepts (fast-check)', () => {
-    let accepted = 0;
-    fc.assert(
-      fc.property(keymap, (v) => {
-        if (isPlainKeymap(v)) {
-          accepted++;
-          expect(keymapShape.safeParse(v).success).toBe(true);
-        }
-      }),
-      { numRuns: 5000 },
-    );
+    const accepted = acceptedOnlyAsSchema(keymap, isPlainKeymap, keymapShape, 5000);
     expect(accepted).toBeGreaterThan(0);
   });
 
