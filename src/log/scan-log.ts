@@ -71,14 +71,10 @@ const PHYSICAL: ReadonlySet<ScanProblem> = new Set(['no-hash', 'hash-mismatch', 
 export interface ScanLimits {
   /** Longest line read, in bytes: far above any line exine writes (a keymap of thousands of types in line 1). */
   readonly maxLineBytes: number;
-  /**
-   * Bytes decoded to text at once. The reader now decodes one line at a time (never more than
-   * maxLineBytes, far below V8's string limit), so this no longer changes anything.
-   */
-  readonly blockBytes: number;
 }
 
-export const SCAN_LIMITS: ScanLimits = { maxLineBytes: 16 * 1024 * 1024, blockBytes: 64 * 1024 * 1024 };
+// One line is decoded at a time, never more than maxLineBytes: far below V8's string limit.
+export const SCAN_LIMITS: ScanLimits = { maxLineBytes: 16 * 1024 * 1024 };
 
 const mib = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MiB`;
 
