@@ -47,6 +47,19 @@ async function cjsBundle(out, resolveDir, entries) {
 for (const d of deferredFiles.values()) await cjsBundle(d.out, d.dir, d.gets.map((g) => [g.name, g.path]));
 await cjsBundle('stdlib.cjs', resolve('src/stats'), stdlibIds.map((id) => [id, id]));
 
+// Within one command's bundle, each dynamic import splits the code it shares with the rest into
+// chunks of their own (esbuild cannot tell that it always loads second), so only the screens, the
+// part that needs Ink and React, stay behind one; the rest is imported statically.
+function staticImports(source) {
+  const kept = [];
+  const out = source.replace(/\bawait import\('(\.{1,2}\/[^']+)'\)/g, (call, path) => {
+    if (/(^|\/)screens\/run-[\w-]+\.js$/.test(path)) return call;
+    kept.push(`import * as staticModule${kept.length} from '${path}';\n`);
+    return `staticModule${kept.length - 1}`;
+  });
+  return kept.join('') + out;
+}
+
 // In the chunks, a deferred file and each load('@stdlib/…') read those files through require().
 const deferLoads = {
   name: 'defer-loads',
@@ -55,8 +68,9 @@ const deferLoads = {
     b.onLoad({ filter: /\.tsx?$/ }, (args) => {
       const d = deferredFiles.get(args.path);
       if (d) return { contents: d.gets.map((g) => `export const ${g.name} = () => require('./${d.out}')[${JSON.stringify(g.name)}];`).join('\n'), loader: 'ts' };
-      const source = readFileSync(args.path, 'utf8');
-      if (!/\bload\('@stdlib\//.test(source)) return undefined;
+      const read = readFileSync(args.path, 'utf8');
+      const source = staticImports(read);
+      if (!/\bload\('@stdlib\//.test(source)) return source === read ? undefined : { contents: source, loader: args.path.endsWith('x') ? 'tsx' : 'ts' };
       const contents = source
         .replace(/^const load = createRequire\(import\.meta\.url\);$/m, '')
         .replace(/\bload\('(@stdlib\/[^']+)'\)/g, "require('./stdlib.cjs')['$1']");
@@ -65,23 +79,56 @@ const deferLoads = {
   },
 };
 
-const result = await build({
-  ...common,
-  entryPoints: { exine: 'src/cli/main.ts' },
-  outdir,
-  splitting: true,
-  format: 'esm',
-  // Beside the .cjs files, so that require('./x.cjs') finds them from every chunk.
-  chunkNames: '[name]-[hash]',
-  // fetch: the layout engine's WebAssembly loader asks for it before it sees that its module is
-  // inline; reading Node's global fetch loads its HTTP client (undici), tens of milliseconds of a
-  // first frame. exine fetches nothing, so in the bundle fetch is undefined.
-  define: { 'process.env.NODE_ENV': '"production"', fetch: 'undefined' },
-  // Ink loads React's devtools only when DEV=true; they are not installed.
-  external: ['react-devtools-core'],
-  // CommonJS inside ES modules still calls require(): for Node's own modules and the .cjs files.
-  banner: { js: "import { createRequire as __exineCreateRequire } from 'node:module'; const require = __exineCreateRequire(import.meta.url);" },
-  plugins: [deferLoads],
-  metafile: true,
+// One build per command, each of whose entries is main.ts with only that command's import kept:
+// a command then loads one file (and a chunk per screen it opens) instead of a dozen chunks that
+// one shared build splits its code into, which Node 20's module loader takes one by one (about
+// 0.7 ms each). Each build holds one copy of every module it uses, so classes such as ExineError
+// stay one class within a process. bin/exine.js picks the build from the command's name;
+// exine.js, with no command kept, answers --help and unknown names.
+const mainSource = readFileSync('src/cli/main.ts', 'utf8');
+const commandModules = new Map([...mainSource.matchAll(/^ {2}([a-z]+): async \(\) => \(await import\('(\.\/commands\/[\w-]+\.js)'\)\)/gm)].map((m) => [m[1], m[2]]));
+if (commandModules.size === 0) throw new Error('src/cli/main.ts: no command imports found; scripts/bundle.mjs reads its COMMANDS table');
+
+// main.ts, rewritten for one command: its import made static (so that it is in the entry file),
+// the others made into an error that bin/exine.js never lets happen.
+const keepOnly = (command) => ({
+  name: 'keep-only',
+  setup(b) {
+    b.onLoad({ filter: /[\\/]src[\\/]cli[\\/]main\.ts$/ }, () => {
+      let kept = '';
+      const contents = mainSource.replace(/\(await import\('(\.\/commands\/[\w-]+\.js)'\)\)/g, (_, path) => {
+        if (path === commandModules.get(command)) {
+          kept = `import * as keptCommand from '${path}';\n`;
+          return 'keptCommand';
+        }
+        return `(() => { throw new Error(${JSON.stringify(`exine: ${path} is in a bundle of its own; bin/exine.js chooses it by the command's name`)}); })()`;
+      });
+      return { contents: kept + contents, loader: 'ts' };
+    });
+  },
 });
-if (process.env.EXINE_BUNDLE_META) writeFileSync(process.env.EXINE_BUNDLE_META, JSON.stringify(result.metafile));
+
+const metas = {};
+for (const command of ['exine', ...commandModules.keys()]) {
+  const result = await build({
+    ...common,
+    entryPoints: { [command]: 'src/cli/main.ts' },
+    outdir,
+    splitting: true,
+    format: 'esm',
+    // Beside the .cjs files, so that require('./x.cjs') finds them from every chunk.
+    chunkNames: `${command}-[name]-[hash]`,
+    // fetch: the layout engine's WebAssembly loader asks for it before it sees that its module is
+    // inline; reading Node's global fetch loads its HTTP client (undici), tens of milliseconds of a
+    // first frame. exine fetches nothing, so in the bundle fetch is undefined.
+    define: { 'process.env.NODE_ENV': '"production"', fetch: 'undefined' },
+    // Ink loads React's devtools only when DEV=true; they are not installed.
+    external: ['react-devtools-core'],
+    // CommonJS inside ES modules still calls require(): for Node's own modules and the .cjs files.
+    banner: { js: "import { createRequire as __exineCreateRequire } from 'node:module'; const require = __exineCreateRequire(import.meta.url);" },
+    plugins: [keepOnly(command), deferLoads],
+    metafile: true,
+  });
+  metas[command] = result.metafile;
+}
+if (process.env.EXINE_BUNDLE_META) writeFileSync(process.env.EXINE_BUNDLE_META, JSON.stringify(metas));
