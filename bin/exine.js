@@ -4,7 +4,7 @@
 import { existsSync } from 'node:fs';
 
 const name = process.argv[2];
-const own = typeof name === 'string' && /^[a-z]+$/.test(name) && name !== 'exine' && existsSync(new URL(`../dist/bundle/${name}.js`, import.meta.url));
+const own = typeof name === 'string' && /^[a-z]+$/.test(name) && existsSync(new URL(`../dist/bundle/${name}.js`, import.meta.url));
 const file = `../dist/bundle/${own ? name : 'exine'}.js`;
 let main;
 try {

@@ -47,18 +47,25 @@ async function cjsBundle(out, resolveDir, entries) {
 for (const d of deferredFiles.values()) await cjsBundle(d.out, d.dir, d.gets.map((g) => [g.name, g.path]));
 await cjsBundle('stdlib.cjs', resolve('src/stats'), stdlibIds.map((id) => [id, id]));
 
-// Within one command's bundle, each dynamic import splits the code it shares with the rest into
-// chunks of their own (esbuild cannot tell that it always loads second), so only the screens, the
-// part that needs Ink and React, stay behind one; the rest is imported statically.
-function staticImports(source) {
+// Each `await import('./x.js')` of a source becomes what decide(path) says: 'static' (an import at
+// the top of the file), 'dynamic' (left as it is) or 'elsewhere' (an error: another command's build
+// holds it, and bin/exine.js never lets the call happen).
+function rewriteImports(source, decide) {
   const kept = [];
   const out = source.replace(/\bawait import\('(\.{1,2}\/[^']+)'\)/g, (call, path) => {
-    if (/(^|\/)screens\/run-[\w-]+\.js$/.test(path)) return call;
+    const how = decide(path);
+    if (how === 'dynamic') return call;
+    if (how === 'elsewhere') return `(() => { throw new Error(${JSON.stringify(`exine: ${path} is in a bundle of its own; bin/exine.js chooses it by the command's name`)}); })()`;
     kept.push(`import * as staticModule${kept.length} from '${path}';\n`);
     return `staticModule${kept.length - 1}`;
   });
   return kept.join('') + out;
 }
+
+// Within one command's bundle, each dynamic import splits the code it shares with the rest into
+// chunks of their own (esbuild cannot tell that it always loads second), so only the screens, the
+// part that needs Ink and React, stay behind one; the rest is imported statically.
+const screensApart = (path) => (/(^|\/)screens\/run-[\w-]+\.js$/.test(path) ? 'dynamic' : 'static');
 
 // In the chunks, a deferred file and each load('@stdlib/…') read those files through require().
 const deferLoads = {
@@ -69,12 +76,13 @@ const deferLoads = {
       const d = deferredFiles.get(args.path);
       if (d) return { contents: d.gets.map((g) => `export const ${g.name} = () => require('./${d.out}')[${JSON.stringify(g.name)}];`).join('\n'), loader: 'ts' };
       const read = readFileSync(args.path, 'utf8');
-      const source = staticImports(read);
-      if (!/\bload\('@stdlib\//.test(source)) return source === read ? undefined : { contents: source, loader: args.path.endsWith('x') ? 'tsx' : 'ts' };
+      const source = rewriteImports(read, screensApart);
+      const loader = args.path.endsWith('x') ? 'tsx' : 'ts';
+      if (!/\bload\('@stdlib\//.test(source)) return source === read ? undefined : { contents: source, loader };
       const contents = source
         .replace(/^const load = createRequire\(import\.meta\.url\);$/m, '')
         .replace(/\bload\('(@stdlib\/[^']+)'\)/g, "require('./stdlib.cjs')['$1']");
-      return { contents, loader: args.path.endsWith('x') ? 'tsx' : 'ts' };
+      return { contents, loader };
     });
   },
 };
@@ -90,21 +98,14 @@ const commandModules = new Map([...mainSource.matchAll(/^ {2}([a-z]+): async \(\
 if (commandModules.size === 0) throw new Error('src/cli/main.ts: no command imports found; scripts/bundle.mjs reads its COMMANDS table');
 
 // main.ts, rewritten for one command: its import made static (so that it is in the entry file),
-// the others made into an error that bin/exine.js never lets happen.
+// the others into the error of rewriteImports.
 const keepOnly = (command) => ({
   name: 'keep-only',
   setup(b) {
-    b.onLoad({ filter: /[\\/]src[\\/]cli[\\/]main\.ts$/ }, () => {
-      let kept = '';
-      const contents = mainSource.replace(/\(await import\('(\.\/commands\/[\w-]+\.js)'\)\)/g, (_, path) => {
-        if (path === commandModules.get(command)) {
-          kept = `import * as keptCommand from '${path}';\n`;
-          return 'keptCommand';
-        }
-        return `(() => { throw new Error(${JSON.stringify(`exine: ${path} is in a bundle of its own; bin/exine.js chooses it by the command's name`)}); })()`;
-      });
-      return { contents: kept + contents, loader: 'ts' };
-    });
+    b.onLoad({ filter: /[\\/]src[\\/]cli[\\/]main\.ts$/ }, () => ({
+      contents: rewriteImports(mainSource, (path) => (path === commandModules.get(command) ? 'static' : 'elsewhere')),
+      loader: 'ts',
+    }));
   },
 });
 
