@@ -7,6 +7,14 @@
 import { build } from 'esbuild';
 import { readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
+import { sourcePatch } from './source-patch.mjs';
+
+// A failed build says what failed in a line each, without the script's stack.
+process.setUncaughtExceptionCaptureCallback((error) => {
+  const texts = error?.errors?.length ? error.errors.map((e) => e.text) : [String(error?.message ?? error)];
+  process.stderr.write(texts.map((t) => `exine build: ${t}\n`).join(''));
+  process.exit(1);
+});
 
 const outdir = 'dist/bundle';
 const sources = readdirSync('src', { recursive: true }).map((f) => join('src', f)).filter((f) => /\.tsx?$/.test(f));
@@ -109,6 +117,21 @@ const keepOnly = (command) => ({
   },
 });
 
+// Ink builds each frame's styled characters and text widths afresh, which is most of a key's time
+// to its frame; patches/ink-6.8.0-frame-caches.patch keeps them from frame to frame (README, "Ink, patched").
+const inkFrameCaches = sourcePatch('ink', 'patches/ink-6.8.0-frame-caches.patch');
+
+const program = {
+  // fetch: the layout engine's WebAssembly loader asks for it before it sees that its module is
+  // inline; reading Node's global fetch loads its HTTP client (undici), tens of milliseconds of a
+  // first frame. exine fetches nothing, so in the bundle fetch is undefined.
+  define: { 'process.env.NODE_ENV': '"production"', fetch: 'undefined' },
+  // Ink loads React's devtools only when DEV=true; they are not installed.
+  external: ['react-devtools-core'],
+  // CommonJS inside ES modules still calls require(): for Node's own modules and the .cjs files.
+  banner: { js: "import { createRequire as __exineCreateRequire } from 'node:module'; const require = __exineCreateRequire(import.meta.url);" },
+};
+
 const metas = {};
 for (const command of ['exine', ...commandModules.keys()]) {
   const result = await build({
@@ -119,17 +142,23 @@ for (const command of ['exine', ...commandModules.keys()]) {
     format: 'esm',
     // Beside the .cjs files, so that require('./x.cjs') finds them from every chunk.
     chunkNames: `${command}-[name]-[hash]`,
-    // fetch: the layout engine's WebAssembly loader asks for it before it sees that its module is
-    // inline; reading Node's global fetch loads its HTTP client (undici), tens of milliseconds of a
-    // first frame. exine fetches nothing, so in the bundle fetch is undefined.
-    define: { 'process.env.NODE_ENV': '"production"', fetch: 'undefined' },
-    // Ink loads React's devtools only when DEV=true; they are not installed.
-    external: ['react-devtools-core'],
-    // CommonJS inside ES modules still calls require(): for Node's own modules and the .cjs files.
-    banner: { js: "import { createRequire as __exineCreateRequire } from 'node:module'; const require = __exineCreateRequire(import.meta.url);" },
-    plugins: [keepOnly(command), deferLoads],
+    ...program,
+    plugins: [keepOnly(command), deferLoads, inkFrameCaches],
     metafile: true,
   });
   metas[command] = result.metafile;
 }
 if (process.env.EXINE_BUNDLE_META) writeFileSync(process.env.EXINE_BUNDLE_META, JSON.stringify(metas));
+
+// The key-to-frame benchmark renders the counting screen in its own process: built here like the
+// program, so that it measures the React and the patched Ink that users run.
+await build({
+  ...common,
+  entryPoints: { 'bench-key-frame': 'src/bench/key-frame.tsx' },
+  outdir,
+  splitting: true,
+  format: 'esm',
+  chunkNames: 'bench-key-frame-[name]-[hash]',
+  ...program,
+  plugins: [deferLoads, inkFrameCaches],
+});

@@ -6,6 +6,7 @@ import { loadKeymap } from '../keymap/load-keymap.js';
 import { encodeLine } from '../log/line-codec.js';
 import { FORMAT_VERSION, type EventPayload } from '../model/events.js';
 import { DEFAULT_RULES } from '../rules/rule-set.js';
+import { SCREEN_RENDER } from '../screens/render-options.js';
 import { fmt, summarise } from './stats.js';
 
 /** A session of an open line and `grains` grains, a traverse every 60 lines. */
@@ -80,16 +81,17 @@ const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
  * with the disk calls stubbed (exine's own work) and real (write + fsync). Keys are 40 ms apart,
  * slower than Ink's 30 frames a second, as an analyst types.
  */
-export async function benchKeyFrame(sizes = [1000, 20_000, 100_000], keys = 150, disks: readonly ('stubbed' | 'real')[] = ['stubbed', 'real']): Promise<string[]> {
-  process.env.NODE_ENV = 'production';
+export async function benchKeyFrame(sizes = [1000, 20_000, 100_000], keys = 150, disks: readonly ('stubbed' | 'real')[] = ['stubbed', 'real'], build = 'the bundle users run'): Promise<string[]> {
+  // Before React loads (from dist/); in the bundle its build is chosen when bundling.
+  Object.assign(process.env, { NODE_ENV: 'production' });
   delete process.env.CI;
   const { render } = await import('ink');
-  const { createElement } = await import('react');
+  const { createElement } = (await import('react')).default;
   const { CountScreen } = await import('../screens/count-screen.js');
   const { CountingSession } = await import('../session/counting-session.js');
   const { resumeLevel } = await import('../session/session-files.js');
   const dir = mkdtempSync(join(tmpdir(), 'exine-bench-'));
-  const lines = [`(i) a key to its frame written (real Ink render, 100x30), ${keys} keys 40 ms apart at each size`];
+  const lines = [`(i) a key to its frame written (real Ink render, 100x30, ${build}), ${keys} keys 40 ms apart at each size`];
   try {
     const keymapKeys = Object.keys(loadKeymap('temperate-lowland').keymap.keys);
     for (const size of sizes) {
@@ -106,8 +108,7 @@ export async function benchKeyFrame(sizes = [1000, 20_000, 100_000], keys = 150,
           stdin: stdin as never,
           stdout: stdout as never,
           stderr: stdout as never,
-          exitOnCtrlC: false,
-          patchConsole: false,
+          ...SCREEN_RENDER,
         });
         await first;
         await pause(100);

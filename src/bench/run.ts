@@ -16,6 +16,9 @@ import { benchTestSuite } from './test-suite.js';
 import { benchAuditScale, benchStartUp } from './start-up.js';
 import { benchKeyFrame } from './key-frame.js';
 
+// The same benchmark built into dist/bundle/ by scripts/bundle.mjs, with the patched Ink users run.
+const bundledKeyFrame = async () => ((await import(new URL('../bundle/bench-key-frame.js', import.meta.url).href)) as typeof import('./key-frame.js')).benchKeyFrame;
+
 type Section = { name: string; run: () => string[] | Promise<string[]>; optIn?: boolean };
 
 // One line per section; a new section is one more line here.
@@ -32,7 +35,11 @@ const SECTIONS: Section[] = [
   { name: 'kill', run: () => benchKill(Number(process.env.EXINE_KILL_ROUNDS ?? 1000)), optIn: true },
   { name: 'start-up', run: benchStartUp },
   { name: 'audit-scale', run: benchAuditScale },
-  { name: 'key-frame', run: () => benchKeyFrame() },
+  {
+    name: 'key-frame',
+    // Beside it, as its baseline, Ink as published (tsc's dist/, node_modules as installed) at one size.
+    run: async () => [...(await (await bundledKeyFrame())()), ...(await benchKeyFrame([20_000], 150, ['stubbed'], 'Ink as published, unpatched'))],
+  },
   { name: 'core-view', run: () => benchCoreView() },
   { name: 'suite', run: benchTestSuite, optIn: true },
 ];

@@ -1,4 +1,5 @@
 import { render } from 'ink';
+import { SCREEN_RENDER } from './render-options.js';
 import { CountingSession } from '../session/counting-session.js';
 import { readLevel, type OpenedLevel } from '../session/session-files.js';
 import type { LevelState } from '../model/level-state.js';
@@ -25,7 +26,7 @@ function quitLine(path: string, state: LevelState, viewOnly: boolean): string {
  */
 export async function runCountScreen(opened: OpenedLevel, options: { bell?: boolean; rareThreshold?: number; breakMinutes?: number | null } = {}): Promise<number> {
   const session = new CountingSession(opened.writer, opened.state, opened.notices, opened.unconfirmed);
-  const instance = render(<CountScreen session={session} bell={options.bell ?? true} rareThreshold={options.rareThreshold ?? 2} breakMinutes={options.breakMinutes ?? null} />, { exitOnCtrlC: false, patchConsole: false });
+  const instance = render(<CountScreen session={session} bell={options.bell ?? true} rareThreshold={options.rareThreshold ?? 2} breakMinutes={options.breakMinutes ?? null} />, SCREEN_RENDER);
   const stop = () => {
     session.shutdown();
     instance.unmount();

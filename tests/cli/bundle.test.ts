@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { HELP, MAIN_HELP } from '../../src/cli/help.js';
@@ -27,6 +27,16 @@ describe('the bundled program, one build per command', () => {
       const run = spawnExine([name]);
       expect(run.code, name).toBe(2);
       expect(oneLine(run), name).toMatch(/unknown command/);
+    }
+  });
+
+  it('every build that draws a screen holds Ink with its frame caches patched in (patches/ink-6.8.0-frame-caches.patch)', () => {
+    const files = readdirSync(BUNDLE).filter((f) => f.endsWith('.js'));
+    for (const name of ['count', 'demo', 'audit', 'core', 'keys']) {
+      const own = files.filter((f) => f === `${name}.js` || f.startsWith(`${name}-`));
+      const withInk = own.filter((f) => readFileSync(join(BUNDLE, f), 'utf8').includes('ink-root'));
+      expect(withInk.length, name).toBeGreaterThan(0);
+      for (const f of withInk) expect(readFileSync(join(BUNDLE, f), 'utf8'), f).toMatch(/framesCaches/);
     }
   });
 
