@@ -108,20 +108,26 @@ export function hasMarkerKey(keymap: Keymap): boolean {
 
 export { DEFAULT_GROUPS };
 
-const sumTaxa = new WeakMap<Keymap, ReadonlySet<string>>();
+// Each taxon's verdict, worked out once per keymap (a keymap is never changed; a new type makes a new one).
+const sumVerdicts = new WeakMap<Keymap, Map<string, boolean>>();
 // A replay asks for one keymap 100,000 times in a row: remember the last one.
 let lastKeymap: Keymap | null = null;
-let lastSet: ReadonlySet<string> = new Set();
+let lastVerdicts = new Map<string, boolean>();
 
 /** Whether a taxon's grains count in the pollen sum; a taxon the keymap does not list is "other". */
 export function inPollenSum(keymap: Keymap, taxon: string): boolean {
-  let set = keymap === lastKeymap ? lastSet : sumTaxa.get(keymap);
-  if (!set) {
-    set = new Set(Object.values(keymap.keys).filter((b) => bindingInSum(keymap, b)).map((b) => b.taxon));
-    sumTaxa.set(keymap, set);
+  let verdicts = keymap === lastKeymap ? lastVerdicts : sumVerdicts.get(keymap);
+  if (!verdicts) {
+    verdicts = new Map();
+    sumVerdicts.set(keymap, verdicts);
   }
   lastKeymap = keymap;
-  lastSet = set;
-  if (set.has(taxon)) return true;
-  return roleOf(keymap, 'other') === 'sum' && !Object.values(keymap.keys).some((b) => b.taxon === taxon);
+  lastVerdicts = verdicts;
+  let verdict = verdicts.get(taxon);
+  if (verdict === undefined) {
+    const bindings = Object.values(keymap.keys).filter((b) => b.taxon === taxon);
+    verdict = bindings.length > 0 ? bindings.some((b) => bindingInSum(keymap, b)) : roleOf(keymap, 'other') === 'sum';
+    verdicts.set(taxon, verdict);
+  }
+  return verdict;
 }

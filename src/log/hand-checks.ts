@@ -28,11 +28,25 @@ const oneOf = (names: readonly string[]) => (x: unknown) => str(x) && names.incl
 
 // ISO_MS is a date of 10 characters, "T", and a time of 13. Lines of one day share the date, so
 // the last date that passed is remembered and only the time is tested again: the same verdict.
-const ISO_TIME = /^T(?:[01]\d|2[0-3]):[0-5]\d:[0-5]\d\.\d{3}Z$/;
 let lastDate = '';
+const digit = (at: string, i: number, max = 9) => {
+  const d = at.charCodeAt(i) - 48;
+  return d >= 0 && d <= max;
+};
+// The time part of ISO_MS, "THH:MM:SS.mmmZ" from index 10 with HH ≤ 23, read character by character
+// (a regular expression on a slice of every line was a tenth of reading a long file).
+function isoTime(at: string): boolean {
+  const h = (at.charCodeAt(11) - 48) * 10 + (at.charCodeAt(12) - 48);
+  return (
+    at[10] === 'T' && digit(at, 11, 2) && digit(at, 12) && h <= 23 &&
+    at[13] === ':' && digit(at, 14, 5) && digit(at, 15) &&
+    at[16] === ':' && digit(at, 17, 5) && digit(at, 18) &&
+    at[19] === '.' && digit(at, 20) && digit(at, 21) && digit(at, 22) && at[23] === 'Z'
+  );
+}
 function isoMs(at: string): boolean {
   if (at.length !== 24) return false;
-  if (at.startsWith(lastDate) && lastDate !== '') return ISO_TIME.test(at.slice(10));
+  if (at.startsWith(lastDate) && lastDate !== '') return isoTime(at);
   if (!ISO_MS.test(at)) return false;
   lastDate = at.slice(0, 10);
   return true;

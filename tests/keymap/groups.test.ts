@@ -2,7 +2,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseKeymap } from '../../src/keymap/parse-keymap.js';
-import { bindingsOf, keyLabel, roleOf, type Keymap } from '../../src/keymap/keymap.js';
+import { bindingsOf, inPollenSum, keyLabel, roleOf, withKey, type Keymap } from '../../src/keymap/keymap.js';
 import { checkKeymapValue } from '../../src/keymap/parse-keymap.js';
 import { levelTable } from '../../src/stats/level-table.js';
 import { LONG_COLUMNS, longRows, wideTable } from '../../src/export/level-export.js';
@@ -223,5 +223,33 @@ describe('a session file with a type of a group of the keymap\'s own', () => {
     const { state } = readLevel(path);
     expect(state.keymap.keys.A).toEqual({ taxon: 'Pediastrum', group: 'NPP' });
     expect(levelTable(state).rows.find((r) => r.taxon === 'Pediastrum')).toMatchObject({ inSum: false, basis: 2 });
+  });
+});
+
+describe('whether a taxon counts in the pollen sum (inPollenSum, remembered per keymap)', () => {
+  it('reads the binding, its group\'s role and "other" for a taxon the keymap does not list; a new keymap asks afresh', () => {
+    const km = ok(`{
+      "name": "t",
+      "groups": { "other": "sum", "exotic": "marker" },
+      "keys": {
+        "b": { "taxon": "Betula", "group": "trees" },
+        "c": { "taxon": "Cyperaceae", "group": "herbs", "inSum": false },
+        "l": { "taxon": "Lycopodium", "group": "exotic" }
+      }
+    }`);
+    // Asked twice each: the second answer comes from what was remembered.
+    for (let round = 0; round < 2; round++) {
+      expect(inPollenSum(km, 'Betula')).toBe(true);
+      expect(inPollenSum(km, 'Cyperaceae')).toBe(false);
+      expect(inPollenSum(km, 'Lycopodium')).toBe(false);
+      expect(inPollenSum(km, 'Unlisted type')).toBe(true);
+    }
+    const outside = ok(`{ "name": "u", "groups": { "other": "outside" }, "keys": { "b": { "taxon": "Betula", "group": "trees" } } }`);
+    expect(inPollenSum(outside, 'Unlisted type')).toBe(false);
+    expect(inPollenSum(km, 'Unlisted type')).toBe(true);
+    // A type added while counting makes a new keymap, with verdicts of its own.
+    const added = withKey(km, 'x', { taxon: 'Unlisted type', group: 'exotic' });
+    expect(inPollenSum(added, 'Unlisted type')).toBe(false);
+    expect(inPollenSum(km, 'Unlisted type')).toBe(true);
   });
 });

@@ -179,7 +179,12 @@ describe('the time stamp check', () => {
     const stampAt = (at: string) => passesHandCheck({ type: 'close', seq: 2, at, prev: 'x' });
     const day = fc.constantFrom('2026-11-02', '2024-02-29', '2026-02-29', '2026-13-01', '2026-11-31', '1900-02-29', '2000-02-29');
     const time = fc.constantFrom('T09:00:00.000Z', 'T23:59:59.999Z', 'T24:00:00.000Z', 'T09:60:00.000Z', 'T09:00:00Z', 'T09:00:00.0000Z', ' 09:00:00.000Z');
-    const at = fc.oneof(fc.tuple(day, time).map(([d, t]) => d + t), fc.string({ maxLength: 26 }));
+    // The time is read character by character: any character at any place of a time of the right
+    // length, the neighbours of the digits ('/' and ':') and the limits of each field among them.
+    const char = fc.constantFrom(...'0123456789/:.TZtz 9'.split(''), '\u0660');
+    const anyTime = fc.array(char, { minLength: 14, maxLength: 14 }).map((cs) => cs.join(''));
+    const nearTime = fc.tuple(fc.constantFrom('T09:00:00.000Z', 'T23:59:59.999Z', 'T19:09:09.009Z', 'T20:50:50.500Z'), fc.nat(13), char).map(([t, i, c]) => t.slice(0, i) + c + t.slice(i + 1));
+    const at = fc.oneof(fc.tuple(day, fc.oneof(time, anyTime, nearTime)).map(([d, t]) => d + t), fc.string({ maxLength: 26 }));
     fc.assert(
       fc.property(fc.array(at, { minLength: 1, maxLength: 6 }), (list) => {
         for (const a of list) expect(stampAt(a)).toBe(ISO_MS.test(a));
