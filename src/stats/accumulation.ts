@@ -50,8 +50,8 @@ function withExpected(state: LevelCounts, observed: readonly number[], points: n
  * array: read it before the next call.
  */
 export class LiveSaturationCurve {
+  /** The grains held, oldest first: their seqs rise, as the stack's fall from its top. */
   private nodes: GrainChain[] = [];
-  private readonly index = new Map<GrainChain, number>();
   /** As in SaturationCurve: observed[k] is the types among the first k grains of the sum in `nodes`. */
   private observed: number[] = [0];
   private inSum: boolean[] = [];
@@ -62,13 +62,28 @@ export class LiveSaturationCurve {
     if (state.keymap !== this.keymap) this.reset(state.keymap);
     const fresh: GrainChain[] = [];
     let s = state.stack;
-    while (s && !this.index.has(s)) {
+    let held = -1;
+    while (s && (held = this.heldAt(s)) < 0) {
       fresh.push(s);
       s = s.below;
     }
-    this.truncate(s ? (this.index.get(s) as number) + 1 : 0);
+    this.truncate(s ? held + 1 : 0);
     for (let i = fresh.length - 1; i >= 0; i--) this.push(fresh[i] as GrainChain);
     return withExpected(state, this.observed, points);
+  }
+
+  /** Where this very node is held, or -1: found by its seq, so no index of 100,000 nodes is kept. */
+  private heldAt(node: GrainChain): number {
+    let lo = 0;
+    let hi = this.nodes.length - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      const m = this.nodes[mid] as GrainChain;
+      if (m.seq === node.seq) return m === node ? mid : -1;
+      if (m.seq < node.seq) lo = mid + 1;
+      else hi = mid - 1;
+    }
+    return -1;
   }
 
   private reset(keymap: LevelCounts['keymap']): void {
@@ -79,7 +94,6 @@ export class LiveSaturationCurve {
   private truncate(length: number): void {
     while (this.nodes.length > length) {
       const node = this.nodes.pop() as GrainChain;
-      this.index.delete(node);
       if (this.inSum.pop()) {
         this.observed.pop();
         const left = (this.seen.get(node.taxon) as number) - 1;
@@ -90,7 +104,6 @@ export class LiveSaturationCurve {
   }
 
   private push(node: GrainChain): void {
-    this.index.set(node, this.nodes.length);
     this.nodes.push(node);
     const sum = inPollenSum(this.keymap as LevelCounts['keymap'], node.taxon);
     this.inSum.push(sum);
