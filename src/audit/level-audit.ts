@@ -3,6 +3,7 @@ import { inPollenSum, roleOf } from '../keymap/keymap.js';
 import type { SessionEvent } from '../model/events.js';
 import type { LevelState } from '../model/level-state.js';
 import { slideOfTraverse } from '../model/slides.js';
+import { byCodeUnits } from '../text/by-code-units.js';
 import { correctionsOf, type Correction } from './corrections.js';
 import { evennessAcrossTraverses, type Evenness } from './evenness.js';
 import { indexGrains, type GrainIndex } from './grain-index.js';
@@ -162,7 +163,7 @@ function traverseRows(walk: SittingWalk, countsBy: ReadonlyMap<number, ReadonlyM
   return [...numbers]
     .sort((a, b) => a - b)
     .map((t) => {
-      const byTaxon = [...(countsBy.get(t) ?? new Map<string, number>()).entries()].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0]));
+      const byTaxon = [...(countsBy.get(t) ?? new Map<string, number>()).entries()].sort((a, b) => b[1] - a[1] || byCodeUnits(a[0], b[0]));
       const counted = byTaxon.reduce((a, [, c]) => a + c, 0);
       const log = walk.traverses.get(t);
       const list = log?.events ?? [];
@@ -182,7 +183,7 @@ function traverseRows(walk: SittingWalk, countsBy: ReadonlyMap<number, ReadonlyM
         perMinute: rate(counted, ms),
         newTypes: newTypesIn.get(t) ?? [],
         newOthers: newOthersIn.get(t) ?? [],
-        cf: [...(cfIn.get(t) ?? new Map<string, number>()).entries()].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0])),
+        cf: [...(cfIn.get(t) ?? new Map<string, number>()).entries()].sort((a, b) => b[1] - a[1] || byCodeUnits(a[0], b[0])),
         undos: log?.undos ?? 0,
         voided: voidedIn.get(t) ?? 0,
         voidedWhole: standingTraverseVoid.get(t) ?? null,

@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { localClock, localDate, localDateTime, showTimesIn } from '../../src/text/local-time.js';
+import { localClock, localDate, localDateTime, localTime, showTimesIn } from '../../src/text/local-time.js';
 import { traverseHeading, traverseLine, traverseStart } from '../../src/screens/audit-lines.js';
 import type { TraverseRow } from '../../src/audit/level-audit.js';
 
@@ -8,10 +8,32 @@ describe('local times with their zone', () => {
   afterEach(() => showTimesIn(undefined));
 
   it('shows the zone of the moment: winter and summer time, and UTC for a machine set to UTC', () => {
-    expect(localDateTime('2026-01-15T03:45:00.000Z', 'Europe/Berlin')).toBe('2026-01-15 04:45 CET');
-    expect(localDateTime('2026-07-15T03:45:00.000Z', 'Europe/Berlin')).toBe('2026-07-15 05:45 CEST');
+    expect(localDateTime('2026-01-15T03:45:00.000Z', 'Europe/Berlin')).toBe('2026-01-15 04:45 UTC+1');
+    expect(localDateTime('2026-07-15T03:45:00.000Z', 'Europe/Berlin')).toBe('2026-07-15 05:45 UTC+2');
+    // Offsets of half and three quarters of an hour, east and west (IANA tz database).
+    expect(localDateTime('2026-07-15T03:45:00.000Z', 'Asia/Kolkata')).toBe('2026-07-15 09:15 UTC+5:30');
+    expect(localDateTime('2026-01-15T03:45:00.000Z', 'America/St_Johns')).toBe('2026-01-15 00:15 UTC-3:30');
+    expect(localDateTime('2026-07-15T03:45:00.000Z', 'Pacific/Chatham')).toBe('2026-07-15 16:30 UTC+12:45');
     expect(localDateTime('2026-07-15T03:45:00.000Z', 'UTC')).toBe('2026-07-15 03:45 UTC');
     // The tests run with TZ=UTC (tests/helpers/isolate-config.ts): the computer's zone is that one.
+    expect(localDateTime('2026-07-15T03:45:00.000Z')).toBe('2026-07-15 03:45 UTC');
+  });
+
+  it("the computer's zone, read from Date without Intl, gives what Intl gives for that zone, across changes of summer time", () => {
+    const before = process.env.TZ;
+    try {
+      for (const zone of ['Europe/Berlin', 'America/New_York', 'America/St_Johns', 'Asia/Kolkata', 'Australia/Lord_Howe', 'Pacific/Chatham', 'Europe/London', 'UTC']) {
+        // Node takes a new TZ at once: the computer's zone is now this one.
+        process.env.TZ = zone;
+        // Every 37 minutes and 13 seconds through 2026, through each zone's changes of time.
+        for (let t = Date.parse('2026-01-01T00:00:00.000Z'); t < Date.parse('2027-01-01T00:00:00.000Z'); t += 2_233_000) {
+          const iso = new Date(t).toISOString();
+          expect(localTime(iso, undefined), `${zone} ${iso}`).toEqual(localTime(iso, zone));
+        }
+      }
+    } finally {
+      process.env.TZ = before;
+    }
     expect(localDateTime('2026-07-15T03:45:00.000Z')).toBe('2026-07-15 03:45 UTC');
   });
 
