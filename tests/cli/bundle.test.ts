@@ -1,8 +1,10 @@
-import { readdirSync, readFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { copyFileSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { HELP, MAIN_HELP } from '../../src/cli/help.js';
 import { oneLine, spawnExine } from '../helpers/run-exine.js';
+import { tempDir } from '../helpers/temp-dir.js';
 
 const BUNDLE = join(import.meta.dirname, '../../dist/bundle');
 
@@ -38,6 +40,26 @@ describe('the bundled program, one build per command', () => {
       expect(withInk.length, name).toBeGreaterThan(0);
       for (const f of withInk) expect(readFileSync(join(BUNDLE, f), 'utf8'), f).toMatch(/framesCaches/);
     }
+  });
+
+  it("the @stdlib functions load through V8's code cache made at install, and give the same numbers when V8 refuses it or it is gone", () => {
+    // In a child process, as users run it: a test worker's V8 flags differ, and V8 would refuse the cache.
+    const probe = (dir: string) => {
+      const script = `const l = require(${JSON.stringify(join(dir, 'stdlib-loader.cjs'))}); const f = l.stdlib;
+        console.log(JSON.stringify([l.codeCache, f['@stdlib/stats-base-dists-beta-quantile'](0.025, 5, 96), f['@stdlib/stats-base-dists-chisquare-quantile'](0.95, 24), f['@stdlib/math-base-special-gammaln'](301)]));`;
+      const run = spawnSync(process.execPath, ['-e', script], { encoding: 'utf8' });
+      expect(run.stderr).toBe('');
+      return JSON.parse(run.stdout) as [string, ...number[]];
+    };
+    const [used, ...numbers] = probe(BUNDLE);
+    expect(used).toBe('used');
+    // Beta(5, 96) 2.5% quantile, the Clopper–Pearson lower limit of 5 in 100: scipy 1.17.1 beta.ppf(0.025, 5, 96) = 0.016431879182052155.
+    expect(numbers[0]).toBeCloseTo(0.016431879182052155, 13);
+    const copy = tempDir();
+    for (const f of ['stdlib.cjs', 'stdlib-loader.cjs']) copyFileSync(join(BUNDLE, f), join(copy, f));
+    expect(probe(copy)).toEqual(['none', ...numbers]);
+    writeFileSync(join(copy, 'stdlib.cjs.cache'), Buffer.alloc(4096, 7));
+    expect(probe(copy)).toEqual(['refused', ...numbers]);
   });
 
   it('verify, summary and export are one file each: no chunk to load beside them', () => {
