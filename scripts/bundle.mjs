@@ -1,11 +1,12 @@
-// The program users run (bin/exine.js loads dist/bundle/exine.js): src/cli/main.ts bundled as ES
-// modules, React in its production build. Each command is a dynamic import in main.ts, so each
+// The program users run (bin/exine.cjs loads dist/bundle/NAME.cjs or NAME.js): src/cli/main.ts
+// bundled once per command, React in its production build. Each command is a dynamic import in main.ts, so each
 // becomes a chunk of its own: Ink and React load only for the commands that draw a screen.
 // What a good start never needs sits in CommonJS files beside the chunks, read on first use:
 // zod (it words errors) and the @stdlib special functions. (dist/ from tsc stays for the bench
 // and the test fixtures; there the same code loads them with plain imports and createRequire.)
 import { build } from 'esbuild';
-import { readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { copyFileSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { basename, dirname, join, resolve } from 'node:path';
 import { sourcePatch } from './source-patch.mjs';
@@ -57,34 +58,13 @@ for (const d of deferredFiles.values()) await cjsBundle(d.out, d.dir, d.gets.map
 await cjsBundle('stdlib.cjs', resolve('src/stats'), stdlibIds.map((id) => [id, id]));
 
 // The @stdlib functions are 400-odd small modules: compiling them is about half of the 20–30 ms
-// that summary's first interval costs. stdlib-loader.cjs compiles stdlib.cjs with V8's code cache,
-// made here by the Node that installs exine, after each function has run once; another Node or
-// V8 refuses the cache and the loader compiles the source as require() would (same code, same
-// numbers, only slower).
-writeFileSync(
-  join(outdir, 'stdlib-loader.cjs'),
-  `'use strict';
-// Written by scripts/bundle.mjs: stdlib.cjs, compiled with the code cache beside it when V8 accepts it.
-const { readFileSync, writeFileSync } = require('node:fs');
-const { join } = require('node:path');
-const { Script } = require('node:vm');
-const file = join(__dirname, 'stdlib.cjs');
-const cacheFile = join(__dirname, 'stdlib.cjs.cache');
-let cachedData;
-try {
-  cachedData = readFileSync(cacheFile);
-} catch {}
-const script = new Script('(function (exports, require, module, __filename, __dirname) {' + readFileSync(file, 'utf8') + '\\n})', { filename: file, cachedData });
-const m = { exports: {} };
-script.runInThisContext().call(m.exports, m.exports, require, m, file, __dirname);
-exports.stdlib = m.exports;
-exports.codeCache = cachedData === undefined ? 'none' : script.cachedDataRejected ? 'refused' : 'used';
-exports.writeCodeCache = () => writeFileSync(cacheFile, script.createCachedData());
-`,
-);
+// that summary's first interval costs. They are read through code-cache.cjs, with V8's code cache
+// made here, by the Node that installs exine, after each function has run once.
+copyFileSync('scripts/code-cache.cjs', join(outdir, 'code-cache.cjs'));
+const codeCache = createRequire(import.meta.url)(resolve(outdir, 'code-cache.cjs'));
 {
-  const loader = createRequire(import.meta.url)(resolve(outdir, 'stdlib-loader.cjs'));
-  const f = loader.stdlib;
+  const stdlib = codeCache.load('stdlib.cjs');
+  const f = stdlib.exports;
   // Each function once, with arguments of the sizes a level gives, so that their code is compiled.
   f['@stdlib/stats-base-dists-beta-quantile'](0.025, 30, 271);
   f['@stdlib/stats-base-dists-beta-quantile'](0.975, 1, 300);
@@ -92,18 +72,18 @@ exports.writeCodeCache = () => writeFileSync(cacheFile, script.createCachedData(
   f['@stdlib/math-base-special-gammainc'](40.5, 30, true, true);
   f['@stdlib/math-base-special-gammainc'](1500.5, 1312, true, false);
   f['@stdlib/math-base-special-gammaln'](301);
-  loader.writeCodeCache();
+  stdlib.writeCodeCache();
 }
 
 // Each `await import('./x.js')` of a source becomes what decide(path) says: 'static' (an import at
 // the top of the file), 'dynamic' (left as it is) or 'elsewhere' (an error: another command's build
-// holds it, and bin/exine.js never lets the call happen).
+// holds it, and bin/exine.cjs never lets the call happen).
 function rewriteImports(source, decide) {
   const kept = [];
   const out = source.replace(/\bawait import\('(\.{1,2}\/[^']+)'\)/g, (call, path) => {
     const how = decide(path);
     if (how === 'dynamic') return call;
-    if (how === 'elsewhere') return `(() => { throw new Error(${JSON.stringify(`exine: ${path} is in a bundle of its own; bin/exine.js chooses it by the command's name`)}); })()`;
+    if (how === 'elsewhere') return `(() => { throw new Error(${JSON.stringify(`exine: ${path} is in a bundle of its own; bin/exine.cjs chooses it by the command's name`)}); })()`;
     kept.push(`import * as staticModule${kept.length} from '${path}';\n`);
     return `staticModule${kept.length - 1}`;
   });
@@ -129,7 +109,7 @@ const deferLoads = {
       if (!/\bload\('@stdlib\//.test(source)) return source === read ? undefined : { contents: source, loader };
       const contents = source
         .replace(/^const load = createRequire\(import\.meta\.url\);$/m, '')
-        .replace(/\bload\('(@stdlib\/[^']+)'\)/g, "require('./stdlib-loader.cjs').stdlib['$1']");
+        .replace(/\bload\('(@stdlib\/[^']+)'\)/g, "require('./code-cache.cjs').load('stdlib.cjs').exports['$1']");
       return { contents, loader };
     });
   },
@@ -139,8 +119,8 @@ const deferLoads = {
 // a command then loads one file (and a chunk per screen it opens) instead of a dozen chunks that
 // one shared build splits its code into, which Node 20's module loader takes one by one (about
 // 0.7 ms each). Each build holds one copy of every module it uses, so classes such as ExineError
-// stay one class within a process. bin/exine.js picks the build from the command's name;
-// exine.js, with no command kept, answers --help and unknown names.
+// stay one class within a process. bin/exine.cjs picks the build from the command's name;
+// the build named exine, with no command kept, answers --help and unknown names.
 const mainSource = readFileSync('src/cli/main.ts', 'utf8');
 const commandModules = new Map([...mainSource.matchAll(/^ {2}([a-z]+): async \(\) => \(await import\('(\.\/commands\/[\w-]+\.js)'\)\)/gm)].map((m) => [m[1], m[2]]));
 if (commandModules.size === 0) throw new Error('src/cli/main.ts: no command imports found; scripts/bundle.mjs reads its COMMANDS table');
@@ -189,6 +169,31 @@ for (const command of ['exine', ...commandModules.keys()]) {
   metas[command] = result.metafile;
 }
 if (process.env.EXINE_BUNDLE_META) writeFileSync(process.env.EXINE_BUNDLE_META, JSON.stringify(metas));
+
+// A command whose build is one file (no screen, no chunk) is built again as CommonJS, which
+// bin/exine.cjs loads through code-cache.cjs: Node 20 keeps no code cache for ES modules, and
+// compiling the command is a good part of its start. Its cache is made by running it once here,
+// on a demo level, so that the functions a run calls are compiled in it too.
+const demoLevel = join('demo-sessions', readdirSync('demo-sessions').filter((f) => f.endsWith('.jsonl')).sort()[0]);
+const cacheRuns = { exine: ['--help'], verify: ['verify', demoLevel], summary: ['summary', demoLevel], export: ['export', demoLevel] };
+for (const [command, meta] of Object.entries(metas)) {
+  const files = Object.keys(meta.outputs).filter((f) => f.endsWith('.js'));
+  if (files.length !== 1) continue;
+  await build({
+    ...common,
+    entryPoints: { [command]: 'src/cli/main.ts' },
+    outdir,
+    format: 'cjs',
+    outExtension: { '.js': '.cjs' },
+    ...program,
+    define: { ...program.define, 'import.meta.url': '__exineUrl' },
+    banner: { js: "const __exineUrl = require('node:url').pathToFileURL(__filename).href;" },
+    plugins: [keepOnly(command), deferLoads],
+  });
+  rmSync(join(outdir, `${command}.js`));
+  const run = spawnSync(process.execPath, ['bin/exine.cjs', ...(cacheRuns[command] ?? [command, '--help'])], { env: { ...process.env, EXINE_WRITE_CODE_CACHE: '1' }, stdio: 'ignore' });
+  if (run.error) throw run.error;
+}
 
 // The key-to-frame benchmark renders the counting screen in its own process: built here like the
 // program, so that it measures the React and the patched Ink that users run.

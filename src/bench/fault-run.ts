@@ -10,7 +10,7 @@ import { readLevel, resumeLevel } from '../session/session-files.js';
 import { UNSEEN } from '../text/visible.js';
 import { baseLevel, chained, type FaultCase } from './fault-cases.js';
 
-const BIN = resolve(fileURLToPath(import.meta.url), '../../../bin/exine.js');
+const BIN = resolve(fileURLToPath(import.meta.url), '../../../bin/exine.cjs');
 /** A run slower than this counts as a hang. */
 export const HANG_MS = 5000;
 

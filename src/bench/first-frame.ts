@@ -6,7 +6,7 @@ import { fileURLToPath } from 'node:url';
 import { bigSession } from './resume.js';
 import { fmt, ratio, summarise } from './stats.js';
 
-export const BIN = resolve(fileURLToPath(import.meta.url), '../../../bin/exine.js');
+export const BIN = resolve(fileURLToPath(import.meta.url), '../../../bin/exine.cjs');
 
 /** Peak resident memory of a running process, in MB (Linux: VmHWM), or NaN. */
 function peakMb(pid: number): number {

@@ -9,7 +9,7 @@ import type { OpenEvent } from '../model/events.js';
 import { resumeLevel } from '../session/session-files.js';
 import { seededRandom } from '../demo/seeded-random.js';
 
-const BIN = resolve(fileURLToPath(import.meta.url), '../../../bin/exine.js');
+const BIN = resolve(fileURLToPath(import.meta.url), '../../../bin/exine.cjs');
 // Trees only: every key is a grain in the pollen sum, so the sum on screen and the grains on disk compare one to one.
 const KEYS = 'qbapu';
 const strip = (s: string) => s.replace(/\x1b\[[0-9;?]*[A-Za-z]/g, '').replace(/\x1b\][^\x07]*\x07/g, '');

@@ -5,7 +5,7 @@ import { gammaP, gammaQ } from './incomplete-gamma.js';
 // tens of milliseconds. They are loaded on first use, so commands and the first
 // frame of the counting screen do not wait for functions they may never call.
 // In the bundle, scripts/bundle.mjs turns each load('…') into a read of stdlib.cjs beside the
-// chunks (through stdlib-loader.cjs and V8's code cache), still only on first use.
+// chunks (through code-cache.cjs and V8's code cache), still only on first use.
 const load = createRequire(import.meta.url);
 
 type BetaQuantile = typeof import('@stdlib/stats-base-dists-beta-quantile');

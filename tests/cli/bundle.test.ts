@@ -8,7 +8,7 @@ import { tempDir } from '../helpers/temp-dir.js';
 
 const BUNDLE = join(import.meta.dirname, '../../dist/bundle');
 
-// bin/exine.js runs one build per command (scripts/bundle.mjs); these run the program users run.
+// bin/exine.cjs runs one build per command (scripts/bundle.mjs); these run the program users run.
 describe('the bundled program, one build per command', () => {
   it('every command answers from its own build: its help, and an error its own code throws, worded as main words it', () => {
     for (const name of Object.keys(HELP)) {
@@ -42,10 +42,10 @@ describe('the bundled program, one build per command', () => {
     }
   });
 
-  it("the @stdlib functions load through V8's code cache made at install, and give the same numbers when V8 refuses it or it is gone", () => {
+  it("the @stdlib functions and the commands without a screen load through V8's code cache made at install, and give the same numbers when V8 refuses it or it is gone", () => {
     // In a child process, as users run it: a test worker's V8 flags differ, and V8 would refuse the cache.
     const probe = (dir: string) => {
-      const script = `const l = require(${JSON.stringify(join(dir, 'stdlib-loader.cjs'))}); const f = l.stdlib;
+      const script = `const c = require(${JSON.stringify(join(dir, 'code-cache.cjs'))}); const l = c.load('stdlib.cjs'); const f = l.exports;
         console.log(JSON.stringify([l.codeCache, f['@stdlib/stats-base-dists-beta-quantile'](0.025, 5, 96), f['@stdlib/stats-base-dists-chisquare-quantile'](0.95, 24), f['@stdlib/math-base-special-gammaln'](301)]));`;
       const run = spawnSync(process.execPath, ['-e', script], { encoding: 'utf8' });
       expect(run.stderr).toBe('');
@@ -56,16 +56,21 @@ describe('the bundled program, one build per command', () => {
     // Beta(5, 96) 2.5% quantile, the Clopper–Pearson lower limit of 5 in 100: scipy 1.17.1 beta.ppf(0.025, 5, 96) = 0.016431879182052155.
     expect(numbers[0]).toBeCloseTo(0.016431879182052155, 13);
     const copy = tempDir();
-    for (const f of ['stdlib.cjs', 'stdlib-loader.cjs']) copyFileSync(join(BUNDLE, f), join(copy, f));
+    for (const f of ['stdlib.cjs', 'code-cache.cjs']) copyFileSync(join(BUNDLE, f), join(copy, f));
     expect(probe(copy)).toEqual(['none', ...numbers]);
     writeFileSync(join(copy, 'stdlib.cjs.cache'), Buffer.alloc(4096, 7));
     expect(probe(copy)).toEqual(['refused', ...numbers]);
+    for (const name of ['exine', 'verify', 'summary', 'export', 'prefs']) {
+      const run = spawnSync(process.execPath, ['-e', `console.log(require(${JSON.stringify(join(BUNDLE, 'code-cache.cjs'))}).load('${name}.cjs').codeCache)`], { encoding: 'utf8' });
+      expect(run.stdout.trim(), name).toBe('used');
+    }
   });
 
-  it('verify, summary and export are one file each: no chunk to load beside them', () => {
+  it('verify, summary and export are one CommonJS file each: no chunk to load beside them', () => {
     for (const name of ['verify', 'summary', 'export']) {
-      const source = readFileSync(join(BUNDLE, `${name}.js`), 'utf8');
-      expect(source, name).not.toMatch(/from\s*["']\.\/[^"']+\.js["']|import\(\s*["']\.\//);
+      const source = readFileSync(join(BUNDLE, `${name}.cjs`), 'utf8');
+      expect(source, name).not.toMatch(/require\(["']\.\/[^"']+\.js["']\)|import\(\s*["']\.\//);
+      expect(readdirSync(BUNDLE), name).not.toContain(`${name}.js`);
     }
   });
 });

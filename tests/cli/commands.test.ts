@@ -103,7 +103,7 @@ describe('the read-only commands on the demo core', () => {
   });
 });
 
-describe('the real program, bin/exine.js', () => {
+describe('the real program, bin/exine.cjs', () => {
   // The other CLI tests call main() in-process: here the launcher and a real process give the same.
   it.each([
     [['keys', 'keypad'], 0],

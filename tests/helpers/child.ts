@@ -2,7 +2,7 @@ import { spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 
 export const TALLY_CHILD = fileURLToPath(new URL('../fixtures/tally-child.mjs', import.meta.url));
-export const EXINE_BIN = fileURLToPath(new URL('../../bin/exine.js', import.meta.url));
+export const EXINE_BIN = fileURLToPath(new URL('../../bin/exine.cjs', import.meta.url));
 
 export interface Child {
   readonly proc: ChildProcessWithoutNullStreams;
