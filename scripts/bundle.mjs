@@ -1,9 +1,10 @@
 // The program users run (bin/exine.cjs loads dist/bundle/NAME.cjs or NAME.js): src/cli/main.ts
-// bundled once per command, React in its production build. Each command is a dynamic import in main.ts, so each
-// becomes a chunk of its own: Ink and React load only for the commands that draw a screen.
-// What a good start never needs sits in CommonJS files beside the chunks, read on first use:
-// zod (it words errors) and the @stdlib special functions. (dist/ from tsc stays for the bench
-// and the test fixtures; there the same code loads them with plain imports and createRequire.)
+// bundled once per command, React in its production build. A command without a screen is one
+// CommonJS file read with V8's code cache; a command with one is ES modules, its screen in a chunk
+// of its own behind a dynamic import, so that Ink and React load only when a screen opens.
+// What a good start never needs sits in CommonJS files beside them, read on first use: zod (it
+// words errors) and the @stdlib special functions. (dist/ from tsc stays for the bench and the
+// test fixtures; there the same code loads them with plain imports and createRequire.)
 import { build } from 'esbuild';
 import { spawnSync } from 'node:child_process';
 import { copyFileSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -138,7 +139,7 @@ const keepOnly = (command) => ({
 });
 
 // Ink builds each frame's styled characters and text widths afresh, which is most of a key's time
-// to its frame; patches/ink-6.8.0-frame-caches.patch keeps them from frame to frame (README, "Ink, patched").
+// to its frame; patches/ink-6.8.0-frame-caches.patch keeps them from frame to frame (README, "Dependencies, and why").
 const inkFrameCaches = sourcePatch('ink', 'patches/ink-6.8.0-frame-caches.patch');
 
 const program = {
@@ -168,7 +169,6 @@ for (const command of ['exine', ...commandModules.keys()]) {
   });
   metas[command] = result.metafile;
 }
-if (process.env.EXINE_BUNDLE_META) writeFileSync(process.env.EXINE_BUNDLE_META, JSON.stringify(metas));
 
 // A command whose build is one file (no screen, no chunk) is built again as CommonJS, which
 // bin/exine.cjs loads through code-cache.cjs: Node 20 keeps no code cache for ES modules, and
@@ -179,7 +179,7 @@ const cacheRuns = { exine: ['--help'], verify: ['verify', demoLevel], summary: [
 for (const [command, meta] of Object.entries(metas)) {
   const files = Object.keys(meta.outputs).filter((f) => f.endsWith('.js'));
   if (files.length !== 1) continue;
-  await build({
+  const cjs = await build({
     ...common,
     entryPoints: { [command]: 'src/cli/main.ts' },
     outdir,
@@ -189,11 +189,15 @@ for (const [command, meta] of Object.entries(metas)) {
     define: { ...program.define, 'import.meta.url': '__exineUrl' },
     banner: { js: "const __exineUrl = require('node:url').pathToFileURL(__filename).href;" },
     plugins: [keepOnly(command), deferLoads],
+    metafile: true,
   });
+  metas[command] = cjs.metafile;
   rmSync(join(outdir, `${command}.js`));
   const run = spawnSync(process.execPath, ['bin/exine.cjs', ...(cacheRuns[command] ?? [command, '--help'])], { env: { ...process.env, EXINE_WRITE_CODE_CACHE: '1' }, stdio: 'ignore' });
   if (run.error) throw run.error;
 }
+// What each command's shipped build holds (ES modules with chunks, or one CommonJS file).
+if (process.env.EXINE_BUNDLE_META) writeFileSync(process.env.EXINE_BUNDLE_META, JSON.stringify(metas));
 
 // The key-to-frame benchmark renders the counting screen in its own process: built here like the
 // program, so that it measures the React and the patched Ink that users run.

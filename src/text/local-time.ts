@@ -16,7 +16,7 @@ export interface LocalTime {
 const pad = (n: number, width = 2) => String(n).padStart(width, '0');
 
 /** "UTC" for an offset of 0 minutes east of UTC, else "UTC+1", "UTC+5:30", "UTC-4". */
-export function offsetName(minutesEast: number): string {
+function offsetName(minutesEast: number): string {
   if (minutesEast === 0) return 'UTC';
   const a = Math.abs(minutesEast);
   return `UTC${minutesEast > 0 ? '+' : '-'}${Math.floor(a / 60)}${a % 60 ? `:${pad(a % 60)}` : ''}`;
