@@ -1,4 +1,4 @@
-import { closeSync, fsyncSync, ftruncateSync, openSync, rmSync, writeSync } from 'node:fs';
+import { closeSync, fsyncSync, ftruncateSync, openSync, readSync, rmSync, writeSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { ExineError } from '../errors.js';
 import { plainIoError } from '../io/describe-io-error.js';
@@ -27,37 +27,49 @@ function createBackup(path: string, stamp: string): { fd: number; name: string }
   }
 }
 
+/** Copy the session's bytes from `from` to its end into the backup, a block at a time; the number copied. */
+function copyTail(session: number, backup: number, from: number): number {
+  const block = Buffer.allocUnsafe(1024 * 1024);
+  let copied = 0;
+  for (let n = readSync(session, block, 0, block.length, from); n > 0; n = readSync(session, block, 0, block.length, from + copied)) {
+    for (let written = 0; written < n; ) written += writeSync(backup, block, written, n - written);
+    copied += n;
+  }
+  return copied;
+}
+
 /**
- * Cut a damaged tail off a session file. The cut bytes are first saved, synced,
- * beside the session; only then is the file truncated. The caller holds the lock.
+ * Cut a damaged tail off a session file. The cut bytes, read again from the
+ * file, are first saved, synced, beside the session; only then is the file
+ * truncated. The caller holds the lock, so nothing is appended meanwhile.
  */
-export function repairTail(path: string, bytes: Buffer, damage: Damage, now: Date): TailRepair {
-  const cut = bytes.subarray(damage.offset);
+export function repairTail(path: string, damage: Damage, now: Date): TailRepair {
   const stamp = now.toISOString().replace(/[:.]/g, '-');
-  let backup: { fd: number; name: string };
-  try {
-    backup = createBackup(path, stamp);
-  } catch (error) {
-    throw new ExineError(`cannot repair ${path}: the backup of its damaged tail could not be created (${(error as NodeJS.ErrnoException).code ?? (error as Error).message}); nothing was changed`);
-  }
-  const backupPath = join(dirname(path), backup.name);
-  try {
-    for (let written = 0; written < cut.length; ) written += writeSync(backup.fd, cut, written, cut.length - written);
-    fsyncSync(backup.fd);
-  } catch (error) {
-    closeSync(backup.fd);
-    rmSync(backupPath, { force: true });
-    const why = plainIoError(error) ?? (error as NodeJS.ErrnoException).code ?? (error as Error).message;
-    throw new ExineError(`cannot repair ${path}: saving its damaged tail to ${backup.name} failed (${why}); nothing was changed, the file is as it was`);
-  }
-  closeSync(backup.fd);
-  fsyncDir(dirname(path));
   const fd = openSync(path, 'r+');
   try {
+    let backup: { fd: number; name: string };
+    try {
+      backup = createBackup(path, stamp);
+    } catch (error) {
+      throw new ExineError(`cannot repair ${path}: the backup of its damaged tail could not be created (${(error as NodeJS.ErrnoException).code ?? (error as Error).message}); nothing was changed`);
+    }
+    const backupPath = join(dirname(path), backup.name);
+    let cutBytes: number;
+    try {
+      cutBytes = copyTail(fd, backup.fd, damage.offset);
+      fsyncSync(backup.fd);
+    } catch (error) {
+      closeSync(backup.fd);
+      rmSync(backupPath, { force: true });
+      const why = plainIoError(error) ?? (error as NodeJS.ErrnoException).code ?? (error as Error).message;
+      throw new ExineError(`cannot repair ${path}: saving its damaged tail to ${backup.name} failed (${why}); nothing was changed, the file is as it was`);
+    }
+    closeSync(backup.fd);
+    fsyncDir(dirname(path));
     ftruncateSync(fd, damage.offset);
     fsyncSync(fd);
+    return { damage, cutBytes, backup: backup.name };
   } finally {
     closeSync(fd);
   }
-  return { damage, cutBytes: cut.length, backup: backup.name };
 }

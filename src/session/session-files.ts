@@ -2,7 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { ExineError } from '../errors.js';
-import { readSessionBytes } from '../io/read-session-bytes.js';
+import { withSessionFile } from '../io/session-file-source.js';
 import type { Keymap } from '../keymap/keymap.js';
 import { isBackupOf, repairTail } from '../log/repair-tail.js';
 import { scanLog, type LogScan } from '../log/scan-log.js';
@@ -54,19 +54,21 @@ function unrecordedBackups(path: string, state: LevelState): { name: string; byt
     .map((name) => ({ name, bytes: statSync(join(dirname(path), name)).size }));
 }
 
-/** Scan a file's bytes and fold its valid events as they are read, keeping none of them. */
-function scanAndFold(bytes: Buffer): { scan: LogScan; state: LevelState | null } {
+/** Scan a session file and fold its valid events as they are read, keeping none of them. */
+function scanAndFold(path: string): { scan: LogScan; state: LevelState | null } {
   let folding: Folding | null = null;
-  const scan = scanLog(bytes, (event, keymap) => {
-    folding ??= startFold(event as OpenEvent, keymap);
-    folding.add(event);
-  });
+  const scan = withSessionFile(path, (source) =>
+    scanLog(source, (event, keymap) => {
+      folding ??= startFold(event as OpenEvent, keymap);
+      folding.add(event);
+    }),
+  );
   return { scan, state: (folding as Folding | null)?.state() ?? null };
 }
 
 /** Read a level without locking or changing it: for summary, export, audit. */
 export function readLevel(path: string): { scan: LogScan; state: LevelState; warnings: string[] } {
-  const { scan, state } = scanAndFold(readSessionBytes(path));
+  const { scan, state } = scanAndFold(path);
   if (scan.corruption || !state) {
     throw new ExineError(`${path}: ${scan.corruption?.message}; nothing was read (exine verify ${path} shows the details)`);
   }
@@ -151,8 +153,7 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
   try {
     const notices: string[] = [];
     if (lock.tookOverFrom) notices.push(`took over a stale lock (${lock.tookOverFrom})`);
-    const bytes = readSessionBytes(path);
-    const { scan, state: folded } = scanAndFold(bytes);
+    const { scan, state: folded } = scanAndFold(path);
     if (scan.corruption || !folded) {
       throw new ExineError(
         `${path}: ${scan.corruption?.message}; it was not opened for counting and nothing was changed (exine verify ${path} for details)`,
@@ -169,7 +170,7 @@ export function resumeLevel(path: string, options: ResumeOptions = {}): OpenedLe
     }
     let repaired = null;
     if (scan.tail) {
-      repaired = repairTail(path, bytes, scan.tail, (options.clock ?? (() => new Date()))());
+      repaired = repairTail(path, scan.tail, (options.clock ?? (() => new Date()))());
       notices.push(
         `${scan.tail.message}: ${repaired.cutBytes} bytes cut off and kept in ${repaired.backup}`,
       );
@@ -265,7 +266,7 @@ export function correctLevel(path: string, payload: VoidPayload | RestorePayload
   if (!payload.reason.trim()) throw new ExineError('a correction needs a reason: say why, in a few words');
   const lock = SessionLock.acquire(path);
   try {
-    const { scan, state } = scanAndFold(readSessionBytes(path));
+    const { scan, state } = scanAndFold(path);
     if (scan.corruption || !state) {
       throw new ExineError(`${path}: ${scan.corruption?.message}; no correction was made (exine verify ${path} for details)`);
     }

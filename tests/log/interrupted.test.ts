@@ -71,7 +71,7 @@ describe('a repair that is stopped halfway', () => {
     const bytes = readFileSync(path);
     const scan = scanLog(bytes);
     // The cut and the backup happen; the process stops before the repair event is written.
-    const cut = repairTail(path, bytes, scan.tail!, new Date('2026-11-03T08:00:00.000Z'));
+    const cut = repairTail(path, scan.tail!, new Date('2026-11-03T08:00:00.000Z'));
     const opened = resumeLevel(path);
     opened.writer.close();
     expect(opened.notices.join(' ')).toMatch(new RegExp(`found ${cut.backup.replace(/\./g, '\\.')} \\(${cut.cutBytes} bytes cut off by a repair that was stopped before it was recorded\\)`));
@@ -91,7 +91,7 @@ describe('a repair that is stopped halfway', () => {
     writeFileSync(target, 'not to be touched\n');
     symlinkSync(target, join(dir, `level.jsonl.cut-${stamp}-2.bak`));
     const bytes = readFileSync(path);
-    const cut = repairTail(path, bytes, scanLog(bytes).tail!, new Date('2026-11-03T08:00:00.000Z'));
+    const cut = repairTail(path, scanLog(bytes).tail!, new Date('2026-11-03T08:00:00.000Z'));
     expect(cut.backup).toBe(`level.jsonl.cut-${stamp}-3.bak`);
     expect(readFileSync(join(dir, `level.jsonl.cut-${stamp}.bak`), 'utf8')).toBe('an older backup\n');
     expect(readFileSync(target, 'utf8')).toBe('not to be touched\n');
