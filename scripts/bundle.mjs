@@ -1,7 +1,6 @@
-// The program users run (bin/exine.cjs loads dist/bundle/NAME.cjs or NAME.js): src/cli/main.ts
-// bundled once per command, React in its production build. A command without a screen is one
-// CommonJS file read with V8's code cache; a command with one is ES modules, its screen in a chunk
-// of its own behind a dynamic import, so that Ink and React load only when a screen opens.
+// The program users run (bin/exine.cjs loads dist/bundle/NAME.cjs through code-cache.cjs):
+// src/cli/main.ts bundled once per command as CommonJS, React in its production build. A screen
+// stays behind a dynamic import, which runs its modules (Ink, React) only when it opens.
 // What a good start never needs sits in CommonJS files beside them, read on first use: zod (it
 // words errors) and the @stdlib special functions. (dist/ from tsc stays for the bench and the
 // test fixtures; there the same code loads them with plain imports and createRequire.)
@@ -91,12 +90,11 @@ function rewriteImports(source, decide) {
   return kept.join('') + out;
 }
 
-// Within one command's bundle, each dynamic import splits the code it shares with the rest into
-// chunks of their own (esbuild cannot tell that it always loads second), so only the screens, the
-// part that needs Ink and React, stay behind one; the rest is imported statically.
+// Within one command's bundle, only the screens, the part that needs Ink and React, stay behind a
+// dynamic import (a lazy require in CommonJS); the rest is imported statically.
 const screensApart = (path) => (/(^|\/)screens\/run-[\w-]+\.js$/.test(path) ? 'dynamic' : 'static');
 
-// In the chunks, a deferred file and each load('@stdlib/…') read those files through require().
+// In the bundles, a deferred file and each load('@stdlib/…') read those files through require().
 const deferLoads = {
   name: 'defer-loads',
   setup(b) {
@@ -140,7 +138,13 @@ const keepOnly = (command) => ({
 
 // Ink builds each frame's styled characters and text widths afresh, which is most of a key's time
 // to its frame; patches/ink-6.8.0-frame-caches.patch keeps them from frame to frame (README, "Dependencies, and why").
-const inkFrameCaches = sourcePatch('ink', 'patches/ink-6.8.0-frame-caches.patch');
+// The layout engine's loader and Ink's reconciler await at their top level, which CommonJS cannot;
+// the other two patches take those awaits out (README, "Dependencies, and why").
+const patches = [
+  sourcePatch('ink', 'patches/ink-6.8.0-frame-caches.patch'),
+  sourcePatch('ink', 'patches/ink-6.8.0-no-top-level-await.patch'),
+  sourcePatch('yoga-layout', 'patches/yoga-layout-3.2.1-sync-instantiate.patch'),
+];
 
 const program = {
   // fetch: the layout engine's WebAssembly loader asks for it before it sees that its module is
@@ -153,33 +157,18 @@ const program = {
   banner: { js: "import { createRequire as __exineCreateRequire } from 'node:module'; const require = __exineCreateRequire(import.meta.url);" },
 };
 
+// Every command is CommonJS, read by bin/exine.cjs through code-cache.cjs: Node 20 keeps no code
+// cache for ES modules, and compiling the code is a good part of a start (the counting screen's
+// first frame: about 200 -> 167 ms). A command's screen stays behind its dynamic import, which
+// esbuild turns into a lazy require: `audit --plain` never runs the screen's modules.
+// A command without a screen gets its cache here, from one run on a demo level, so that the
+// functions a run calls are compiled in it too; a screen command gets it from its first run
+// (bin/exine.cjs), as a screen cannot run here without a terminal.
+const demoLevel = join('demo-sessions', readdirSync('demo-sessions').filter((f) => f.endsWith('.jsonl')).sort()[0]);
+const cacheRuns = { exine: ['--help'], verify: ['verify', demoLevel], summary: ['summary', demoLevel], export: ['export', demoLevel], prefs: ['prefs', '--help'] };
 const metas = {};
 for (const command of ['exine', ...commandModules.keys()]) {
   const result = await build({
-    ...common,
-    entryPoints: { [command]: 'src/cli/main.ts' },
-    outdir,
-    splitting: true,
-    format: 'esm',
-    // Beside the .cjs files, so that require('./x.cjs') finds them from every chunk.
-    chunkNames: `${command}-[name]-[hash]`,
-    ...program,
-    plugins: [keepOnly(command), deferLoads, inkFrameCaches],
-    metafile: true,
-  });
-  metas[command] = result.metafile;
-}
-
-// A command whose build is one file (no screen, no chunk) is built again as CommonJS, which
-// bin/exine.cjs loads through code-cache.cjs: Node 20 keeps no code cache for ES modules, and
-// compiling the command is a good part of its start. Its cache is made by running it once here,
-// on a demo level, so that the functions a run calls are compiled in it too.
-const demoLevel = join('demo-sessions', readdirSync('demo-sessions').filter((f) => f.endsWith('.jsonl')).sort()[0]);
-const cacheRuns = { exine: ['--help'], verify: ['verify', demoLevel], summary: ['summary', demoLevel], export: ['export', demoLevel] };
-for (const [command, meta] of Object.entries(metas)) {
-  const files = Object.keys(meta.outputs).filter((f) => f.endsWith('.js'));
-  if (files.length !== 1) continue;
-  const cjs = await build({
     ...common,
     entryPoints: { [command]: 'src/cli/main.ts' },
     outdir,
@@ -188,15 +177,15 @@ for (const [command, meta] of Object.entries(metas)) {
     ...program,
     define: { ...program.define, 'import.meta.url': '__exineUrl' },
     banner: { js: "const __exineUrl = require('node:url').pathToFileURL(__filename).href;" },
-    plugins: [keepOnly(command), deferLoads],
+    plugins: [keepOnly(command), deferLoads, ...patches],
     metafile: true,
   });
-  metas[command] = cjs.metafile;
-  rmSync(join(outdir, `${command}.js`));
+  metas[command] = result.metafile;
+  const withScreen = Object.keys(result.metafile.inputs).some((f) => /(^|\/)src\/screens\/run-/.test(f));
+  if (withScreen) continue;
   const run = spawnSync(process.execPath, ['bin/exine.cjs', ...(cacheRuns[command] ?? [command, '--help'])], { env: { ...process.env, EXINE_WRITE_CODE_CACHE: '1' }, stdio: 'ignore' });
   if (run.error) throw run.error;
 }
-// What each command's shipped build holds (ES modules with chunks, or one CommonJS file).
 if (process.env.EXINE_BUNDLE_META) writeFileSync(process.env.EXINE_BUNDLE_META, JSON.stringify(metas));
 
 // The key-to-frame benchmark renders the counting screen in its own process: built here like the
@@ -209,5 +198,5 @@ await build({
   format: 'esm',
   chunkNames: 'bench-key-frame-[name]-[hash]',
   ...program,
-  plugins: [deferLoads, inkFrameCaches],
+  plugins: [deferLoads, ...patches],
 });

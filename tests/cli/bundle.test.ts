@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { copyFileSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { copyFileSync, cpSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { HELP, MAIN_HELP } from '../../src/cli/help.js';
@@ -32,13 +32,15 @@ describe('the bundled program, one build per command', () => {
     }
   });
 
-  it('every build that draws a screen holds Ink with its frame caches patched in (patches/ink-6.8.0-frame-caches.patch)', () => {
-    const files = readdirSync(BUNDLE).filter((f) => f.endsWith('.js'));
+  it('every build that draws a screen holds Ink and the layout engine patched (patches/), with no top-level await left', () => {
     for (const name of ['count', 'demo', 'audit', 'core', 'keys']) {
-      const own = files.filter((f) => f === `${name}.js` || f.startsWith(`${name}-`));
-      const withInk = own.filter((f) => readFileSync(join(BUNDLE, f), 'utf8').includes('ink-root'));
-      expect(withInk.length, name).toBeGreaterThan(0);
-      for (const f of withInk) expect(readFileSync(join(BUNDLE, f), 'utf8'), f).toMatch(/framesCaches/);
+      const source = readFileSync(join(BUNDLE, `${name}.cjs`), 'utf8');
+      expect(source, name).toContain('ink-root');
+      // ink-6.8.0-frame-caches.patch, ink-6.8.0-no-top-level-await.patch, yoga-layout-3.2.1-sync-instantiate.patch
+      expect(source, name).toMatch(/framesCaches/);
+      expect(source, name).toMatch(/React devtools are not part of this build of exine/);
+      expect(source, name).toMatch(/new WebAssembly\.Instance\(new WebAssembly\.Module\(wa\(\)\)/);
+      expect(source, name).not.toMatch(/await loadYoga\(\)/);
     }
   });
 
@@ -64,6 +66,29 @@ describe('the bundled program, one build per command', () => {
       const run = spawnSync(process.execPath, ['-e', `console.log(require(${JSON.stringify(join(BUNDLE, 'code-cache.cjs'))}).load('${name}.cjs').codeCache)`], { encoding: 'utf8' });
       expect(run.stdout.trim(), name).toBe('used');
     }
+  });
+
+  it('a command without its cache makes one when a run has done its work, not on --help or a failure; the next start uses it', () => {
+    // A copy of the installed program, so that the caches of the real one stay as they are.
+    const root = tempDir();
+    const ROOT = join(import.meta.dirname, '../..');
+    mkdirSync(join(root, 'bin'));
+    mkdirSync(join(root, 'dist/bundle'), { recursive: true });
+    copyFileSync(join(ROOT, 'bin/exine.cjs'), join(root, 'bin/exine.cjs'));
+    copyFileSync(join(ROOT, 'package.json'), join(root, 'package.json'));
+    cpSync(join(ROOT, 'keymaps'), join(root, 'keymaps'), { recursive: true });
+    for (const f of ['code-cache.cjs', 'keys.cjs', 'verify.cjs', 'stdlib.cjs']) copyFileSync(join(BUNDLE, f), join(root, 'dist/bundle', f));
+    const exine = (...args: string[]) => spawnSync(process.execPath, [join(root, 'bin/exine.cjs'), ...args], { encoding: 'utf8', env: { ...process.env, EXINE_WRITE_CODE_CACHE: '' } });
+    const cacheOf = (name: string) =>
+      spawnSync(process.execPath, ['-e', `console.log(require(${JSON.stringify(join(root, 'dist/bundle/code-cache.cjs'))}).load('${name}.cjs').codeCache)`], { encoding: 'utf8' }).stdout.trim();
+    expect(exine('keys', '--help').status).toBe(0);
+    expect(exine('verify', join(root, 'nowhere.jsonl')).status).not.toBe(0);
+    expect(readdirSync(join(root, 'dist/bundle')).filter((f) => f.endsWith('.cache'))).toEqual([]);
+    const run = exine('keys', 'temperate-lowland');
+    expect(run.status, run.stderr).toBe(0);
+    expect(run.stdout).toMatch(/Quercus/);
+    expect(cacheOf('keys')).toBe('used');
+    expect(cacheOf('verify')).toBe('none');
   });
 
   it('verify, summary and export are one CommonJS file each: no chunk to load beside them', () => {
