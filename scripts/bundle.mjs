@@ -166,6 +166,10 @@ const program = {
 // (bin/exine.cjs), as a screen cannot run here without a terminal.
 const demoLevel = join('demo-sessions', readdirSync('demo-sessions').filter((f) => f.endsWith('.jsonl')).sort()[0]);
 const cacheRuns = { exine: ['--help'], verify: ['verify', demoLevel], summary: ['summary', demoLevel], export: ['export', demoLevel], prefs: ['prefs', '--help'] };
+// The thread that checks a long session file's hashes while the scan reads it (src/log/parallel-scan.ts):
+// one file beside the commands, where their new URL('./hash-worker.js', import.meta.url) finds it.
+await build({ ...common, entryPoints: { 'hash-worker': 'src/log/hash-worker.ts' }, outdir, format: 'esm' });
+
 const metas = {};
 for (const command of ['exine', ...commandModules.keys()]) {
   const result = await build({

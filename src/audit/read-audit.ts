@@ -2,7 +2,7 @@ import { statSync } from 'node:fs';
 import { basename } from 'node:path';
 import { ExineError } from '../errors.js';
 import { withSessionFile } from '../io/session-file-source.js';
-import { scanLog } from '../log/scan-log.js';
+import { scanInParallel } from '../log/parallel-scan.js';
 import { verdictOf } from '../log/verify-log.js';
 import type { OpenEvent, RestorePayload, SessionEvent, VoidPayload } from '../model/events.js';
 import { foldEvents } from '../model/fold.js';
@@ -12,7 +12,7 @@ import { auditLevel, type AuditOptions } from './level-audit.js';
 
 /** Everything the audit shows, read without a lock and without changing the file. */
 export function readForAudit(path: string, options: AuditOptions) {
-  const scan = withSessionFile(path, (source) => scanLog(source));
+  const scan = withSessionFile(path, (source) => scanInParallel(source, () => undefined));
   if (scan.corruption || !scan.keymap) {
     throw new ExineError(`${path}: ${scan.corruption?.message}; it cannot be audited until that is explained (exine verify ${path})`);
   }

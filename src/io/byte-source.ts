@@ -15,3 +15,8 @@ export function bufferSource(bytes: Buffer): ByteSource {
     read: (into, offset, length, position) => bytes.copy(into, offset, position, Math.min(bytes.length, position + length)),
   };
 }
+
+/** A source that is an open file: another thread of this process can read it through `fd`. */
+export interface FileSource extends ByteSource {
+  readonly fd: number;
+}

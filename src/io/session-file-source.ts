@@ -1,6 +1,6 @@
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { ExineError } from '../errors.js';
-import type { ByteSource } from './byte-source.js';
+import type { FileSource } from './byte-source.js';
 
 /**
  * Largest session file read. A level of 100,000 grains is about 25 MB; a file
@@ -24,7 +24,7 @@ function plainReadError(error: unknown, shown: string): ExineError {
  * cannot be read; `shown` is the name that line gives. The size is checked on the
  * open file, before anything is read.
  */
-export function withSessionFile<T>(path: string, use: (source: ByteSource) => T, shown = path, maxBytes = MAX_SESSION_BYTES): T {
+export function withSessionFile<T>(path: string, use: (source: FileSource) => T, shown = path, maxBytes = MAX_SESSION_BYTES): T {
   let fd: number;
   let size: number;
   try {
@@ -43,7 +43,8 @@ export function withSessionFile<T>(path: string, use: (source: ByteSource) => T,
     if (size > maxBytes) {
       throw new ExineError(`${shown} is ${mib(size)}, more than the ${mib(maxBytes)} exine reads as a session file (a level of 100,000 grains is about 25 MB); nothing was read`);
     }
-    const source: ByteSource = {
+    const source: FileSource = {
+      fd,
       size,
       read: (into, offset, length, position) => {
         try {

@@ -26,14 +26,18 @@ export function encodeLine(payload: EventPayload, stamp: Stamp, prev: string): {
  * UTF-8 encodes back to exactly the bytes written, and invalid bytes (decoded
  * as U+FFFD) can only make the hash fail, never pass. `bytes`, when given, are the line's
  * own bytes, known to be valid UTF-8: hashing them spares encoding the text again.
+ * With `claimedOnly`, the claimed hash stands for both, not computed: for a
+ * reader whose every hash is checked elsewhere.
  */
-export function lineHashes(line: string, bytes?: Buffer): { claimed: string; actual: string } | null {
+export function lineHashes(line: string, bytes?: Buffer, claimedOnly = false): { claimed: string; actual: string } | null {
   const n = line.length;
   if (n < HASH_SUFFIX_BYTES + 2) return null;
   const start = n - HASH_SUFFIX_BYTES;
   if (!line.startsWith(HASH_PREFIX, start) || !line.endsWith('"}')) return null;
   // A claimed value that is not hex simply fails to match the computed one.
   // The suffix is ASCII, so it is as many bytes as characters.
+  const claimed = line.slice(start + HASH_PREFIX.length, n - 2);
+  if (claimedOnly) return { claimed, actual: claimed };
   const head = bytes ? bytes.subarray(0, bytes.length - HASH_SUFFIX_BYTES) : line.slice(0, start);
-  return { claimed: line.slice(start + HASH_PREFIX.length, n - 2), actual: sha256Hex(head) };
+  return { claimed, actual: sha256Hex(head) };
 }

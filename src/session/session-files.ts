@@ -5,7 +5,8 @@ import { ExineError } from '../errors.js';
 import { withSessionFile } from '../io/session-file-source.js';
 import type { Keymap } from '../keymap/keymap.js';
 import { isBackupOf, repairTail } from '../log/repair-tail.js';
-import { scanLog, type LogScan } from '../log/scan-log.js';
+import { scanInParallel } from '../log/parallel-scan.js';
+import type { LogScan } from '../log/scan-log.js';
 import { SessionLock } from '../log/session-lock.js';
 import { SessionWriter, type WriterOptions } from '../log/session-writer.js';
 import { clearUnconfirmed, readUnconfirmed, unconfirmedPathOf } from '../log/unconfirmed.js';
@@ -58,9 +59,12 @@ function unrecordedBackups(path: string, state: LevelState): { name: string; byt
 function scanAndFold(path: string): { scan: LogScan; state: LevelState | null } {
   let folding: Folding | null = null;
   const scan = withSessionFile(path, (source) =>
-    scanLog(source, (event, keymap) => {
-      folding ??= startFold(event as OpenEvent, keymap);
-      folding.add(event);
+    scanInParallel(source, () => {
+      folding = null;
+      return (event, keymap) => {
+        folding ??= startFold(event as OpenEvent, keymap);
+        folding.add(event);
+      };
     }),
   );
   return { scan, state: (folding as Folding | null)?.state() ?? null };
