@@ -23,11 +23,14 @@ export interface ParallelScanOptions {
   /** The worker's script (the built hash-worker.js beside this module, by default). */
   readonly workerUrl?: URL;
   readonly limits?: ScanLimits;
+  /** Told how the hashes were checked: in line, by the worker, or by reading again after it. */
+  readonly report?: (how: 'in-line' | 'worker' | 'read-again') => void;
 }
 
 export const PARALLEL_MIN_BYTES = 4 * 1024 * 1024;
-// Far past any hashing of a file exine reads (25 MB takes about 50 ms): only a worker gone wrong waits this long.
-const WORKER_WAIT_MS = 60_000;
+// Far past any hashing (25 MB takes about 50 ms here): a worker that failed before it could answer is
+// waited for this long at most, and then the file is read the plain way.
+const workerWaitMs = (bytes: number) => 2000 + bytes / 10_000;
 
 /**
  * Whether a scan that took the hashes as claimed stands: no line it relied on,
@@ -70,8 +73,12 @@ export function scanInParallel(
   const verdict = parallel ? startHashWorker(source, options) : null;
   if (verdict) {
     const scan = scanLog(source, start(), limits, { claimedHashes: true });
-    Atomics.wait(verdict, 0, 0, WORKER_WAIT_MS);
-    if (Atomics.load(verdict, 0) === 1 && claimedScanStands(scan, verdict[1] as number)) return scan;
+    Atomics.wait(verdict, 0, 0, workerWaitMs(source.size));
+    if (Atomics.load(verdict, 0) === 1 && claimedScanStands(scan, verdict[1] as number)) {
+      options.report?.('worker');
+      return scan;
+    }
   }
+  options.report?.(verdict ? 'read-again' : 'in-line');
   return scanLog(source, start(), limits);
 }
