@@ -47,7 +47,11 @@ function startHashWorker(source: FileSource, options: ParallelScanOptions): Int3
   if (url.protocol !== 'file:' || !existsSync(fileURLToPath(url))) return null;
   const job: HashJob = { fd: source.fd, size: source.size, limits: options.limits ?? SCAN_LIMITS, verdict: new SharedArrayBuffer(8) };
   try {
-    new Worker(url, { workerData: job }).unref();
+    // Not this process's flags (--input-type, --cpu-prof … would stop or burden it); a worker that fails is
+    // answered for by the plain reading, never by an error thrown later.
+    const worker = new Worker(url, { workerData: job, execArgv: [] });
+    worker.on('error', () => {});
+    worker.unref();
   } catch {
     return null;
   }

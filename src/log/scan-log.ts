@@ -40,8 +40,10 @@ export interface LogScan {
 
 type LineCheck = { ok: true; event: ParsedEvent; hash: string; keymap?: Keymap } | { ok: false; problem: Problem; message: string };
 
+const badLine = (lineNo: number, problem: Problem, message: string): LineCheck => ({ ok: false, problem, message: `line ${lineNo} ${message}` });
+
 function checkLine(line: string, lineNo: number, prevHash: string, bytes: Buffer | undefined, claimed: boolean): LineCheck {
-  const bad = (problem: Problem, message: string): LineCheck => ({ ok: false, problem, message: `line ${lineNo} ${message}` });
+  const bad = (problem: Problem, message: string) => badLine(lineNo, problem, message);
   const hashes = lineHashes(line, bytes, claimed);
   if (!hashes && lineNo === 1 && !line.includes('"hash"')) {
     return bad('no-hash', 'is not an exine session line: this is not a session file, or its first line was replaced');
@@ -64,7 +66,7 @@ function checkLine(line: string, lineNo: number, prevHash: string, bytes: Buffer
   }
   const content = checkEventContent(record, lineNo);
   if (!content.ok) return bad(content.problem, content.message);
-  return { ok: true, event: content.event, hash: hashes.actual, ...(content.keymap ? { keymap: content.keymap } : {}) };
+  return content.keymap ? { ok: true, event: content.event, hash: hashes.actual, keymap: content.keymap } : { ok: true, event: content.event, hash: hashes.actual };
 }
 
 const PHYSICAL: ReadonlySet<ScanProblem> = new Set(['no-hash', 'hash-mismatch', 'not-json']);

@@ -1,5 +1,6 @@
 import fc from 'fast-check';
-import { openSync, closeSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { closeSync, openSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
@@ -126,6 +127,19 @@ describe('hashes checked beside the scan', () => {
     expect(mute.corruption).toMatchObject({ line: 4, problem: 'hash-mismatch' });
     expect(ways).toEqual(['in-line', 'in-line', 'read-again']);
     expect(fileURLToPath(BUILT_WORKER)).toMatch(/dist/);
+    const intactPath = join(dir, 'intact.jsonl');
+    writeFileSync(intactPath, text);
+    // The worker does not take the flags of the process that starts it (here --input-type, which a worker's file refuses).
+    const withFlags = spawnSync(
+      process.execPath,
+      ['--input-type=module', '-e', `
+        const { withSessionFile } = await import(${JSON.stringify(new URL('../../dist/io/session-file-source.js', import.meta.url).href)});
+        const { scanInParallel } = await import(${JSON.stringify(new URL('../../dist/log/parallel-scan.js', import.meta.url).href)});
+        withSessionFile(process.argv[1], (source) => scanInParallel(source, () => undefined, { minBytes: 0, report: (how) => console.log(how) }));`, intactPath],
+      { encoding: 'utf8' },
+    );
+    expect(withFlags.stderr).toBe('');
+    expect(withFlags.stdout.trim()).toBe('worker');
   });
 
   it('the program users run (a child process, its hashes checked by the bundled worker) finds an edit deep in a long level, and reads an intact one', () => {
