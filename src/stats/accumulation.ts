@@ -60,6 +60,10 @@ export class LiveSaturationCurve {
 
   curve(state: LevelCounts, points = 60): SaturationCurve {
     if (state.keymap !== this.keymap) this.reset(state.keymap);
+    if (this.nodes.length === 0) {
+      this.build(state.stack);
+      return withExpected(state, this.observed, points);
+    }
     const fresh: GrainChain[] = [];
     let s = state.stack;
     let held = -1;
@@ -101,6 +105,27 @@ export class LiveSaturationCurve {
         else this.seen.set(node.taxon, left);
       }
     }
+  }
+
+  /**
+   * The first call (a resumed level of 100,000 grains): the stack read into place in one pass
+   * and the curve in another, with one lookup of a taxon per grain; the same arrays push makes.
+   */
+  private build(stack: GrainChain | null): void {
+    const keymap = this.keymap as LevelCounts['keymap'];
+    for (let s = stack; s; s = s.below) this.nodes.push(s);
+    this.nodes.reverse();
+    const taxa = new Map<string, { sum: boolean; grains: number }>();
+    let types = 0;
+    for (const node of this.nodes) {
+      let taxon = taxa.get(node.taxon);
+      if (taxon === undefined) taxa.set(node.taxon, (taxon = { sum: inPollenSum(keymap, node.taxon), grains: 0 }));
+      this.inSum.push(taxon.sum);
+      if (!taxon.sum) continue;
+      if (taxon.grains++ === 0) types++;
+      this.observed.push(types);
+    }
+    for (const [name, taxon] of taxa) if (taxon.grains > 0) this.seen.set(name, taxon.grains);
   }
 
   private push(node: GrainChain): void {

@@ -92,6 +92,8 @@ describe('the live saturation curve (the screen redraws it after every key)', ()
           } else if (voids.length > 0 && a.kind === 'restore') apply({ type: 'restore', of: voids[a.pick % voids.length] as number, reason: 'test' });
           expect(live.curve(state)).toEqual(saturationCurve(state));
         }
+        // A fresh curve reads the whole stack at once, as the first frame of a resumed level does.
+        expect(new LiveSaturationCurve().curve(state)).toEqual(saturationCurve(state));
       }),
       { numRuns: 300 },
     );
