@@ -130,6 +130,15 @@ function newestTypeSeq(d: Draft): number {
   return newest;
 }
 
+/**
+ * Whether a type of the sum has its first grain above grain `seq`: every grain counted after
+ * `seq` lies above it in the stack, so an undo of the last grain looks at no grain at all.
+ */
+function newTypeAbove(d: Draft, seq: number): boolean {
+  for (let s = d.stack; s && s.seq > seq; s = s.below) if (d.firstSeen[s.taxon] === s.seq && inPollenSum(d.keymap, s.taxon)) return true;
+  return false;
+}
+
 /** The plateau worked out from the stack, for an undo that moved a type's first grain. */
 function plateauOf(d: Draft): number {
   const newest = newestTypeSeq(d);
@@ -248,7 +257,7 @@ function step(d: Draft, event: SessionEvent): void {
       // Only undoing a type's first grain can move the newest type; that rare case walks the stack.
       if (inPollenSum(d.keymap, taxon)) {
         if (wasFirst) d.sinceNewType = plateauOf(d);
-        else if (event.of > newestTypeSeq(d)) d.sinceNewType--;
+        else if (!newTypeAbove(d, event.of)) d.sinceNewType--;
       }
       return;
     }
