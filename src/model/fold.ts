@@ -123,27 +123,25 @@ function firstOf(stack: GrainStack | null, taxon: string): number | undefined {
   return first;
 }
 
-/** seq of the grain that brought the newest type into the sum, or 0. */
-function newestTypeSeq(d: Draft): number {
-  let newest = 0;
-  for (const [taxon, seq] of Object.entries(d.firstSeen)) if (seq > newest && inPollenSum(d.keymap, taxon)) newest = seq;
-  return newest;
-}
+/** Whether this grain brought its type into the pollen sum (it is that type's first grain still counted). */
+const opensType = (d: Draft, s: GrainStack): boolean => d.firstSeen[s.taxon] === s.seq && inPollenSum(d.keymap, s.taxon);
 
 /**
  * Whether a type of the sum has its first grain above grain `seq`: every grain counted after
  * `seq` lies above it in the stack, so an undo of the last grain looks at no grain at all.
  */
 function newTypeAbove(d: Draft, seq: number): boolean {
-  for (let s = d.stack; s && s.seq > seq; s = s.below) if (d.firstSeen[s.taxon] === s.seq && inPollenSum(d.keymap, s.taxon)) return true;
+  for (let s = d.stack; s && s.seq > seq; s = s.below) if (opensType(d, s)) return true;
   return false;
 }
 
-/** The plateau worked out from the stack, for an undo that moved a type's first grain. */
+/**
+ * The plateau worked out from the stack, for an undo that moved a type's first grain: the
+ * grains of the sum above the topmost grain that opened a type, which is the newest type's.
+ */
 function plateauOf(d: Draft): number {
-  const newest = newestTypeSeq(d);
   let since = 0;
-  for (let s = d.stack; s && s.seq > newest; s = s.below) if (inPollenSum(d.keymap, s.taxon)) since++;
+  for (let s = d.stack; s && !opensType(d, s); s = s.below) if (inPollenSum(d.keymap, s.taxon)) since++;
   return since;
 }
 

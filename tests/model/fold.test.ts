@@ -133,6 +133,24 @@ describe('the fold, replayed or applied one event at a time', () => {
   });
 });
 
+/** First grain of each type among the grains still counted, given oldest first. */
+function firstSeenModel(counted: readonly { seq: number; taxon: string }[]): Record<string, number> {
+  const first: Record<string, number> = {};
+  for (const g of counted) first[g.taxon] ??= g.seq;
+  return first;
+}
+
+/** Grains of the sum counted since the last grain of a type new to the sum, from grains given oldest first. */
+function plateauModel(counted: readonly { seq: number; taxon: string }[], inSum: ReadonlySet<string>): number {
+  const seen = new Set<string>();
+  let since = 0;
+  for (const g of counted.filter((c) => inSum.has(c.taxon))) {
+    since = seen.has(g.taxon) ? since + 1 : 0;
+    seen.add(g.taxon);
+  }
+  return since;
+}
+
 describe('when each type entered the count, and the plateau', () => {
   it('property: first-seen grains and grains since the last new type of the sum match a plain model (fast-check)', () => {
     // Sphagnum (spores) and Lycopodium (markers) are outside the sum: they never start or extend a plateau.
@@ -154,17 +172,8 @@ describe('when each type entered the count, and the plateau', () => {
             if (i >= 0) counted.splice(i, 1);
           }
         }
-        const first: Record<string, number> = {};
-        for (const g of counted) first[g.taxon] ??= g.seq;
-        expect(state.firstSeen).toEqual(first);
-        const sumGrains = counted.filter((g) => inSum.has(g.taxon));
-        const seen = new Set<string>();
-        let since = 0;
-        for (const g of sumGrains) {
-          since = seen.has(g.taxon) ? since + 1 : 0;
-          seen.add(g.taxon);
-        }
-        expect(state.sinceNewType).toBe(since);
+        expect(state.firstSeen).toEqual(firstSeenModel(counted));
+        expect(state.sinceNewType).toBe(plateauModel(counted, inSum));
       }),
       { numRuns: 500 },
     );
@@ -215,6 +224,10 @@ describe('voids and restores', () => {
         const seqs: number[] = [];
         for (let st = state.stack; st; st = st.below) seqs.push(st.seq);
         expect(seqs).toEqual([...counting].sort((a, b) => b - a));
+        // A void or restore works first appearances and the plateau out again from the grains left.
+        const counted = [...counting].sort((a, b) => a - b).map((seq) => ({ seq, taxon: grains.get(seq)!.taxon }));
+        expect(state.firstSeen).toEqual(firstSeenModel(counted));
+        expect(state.sinceNewType).toBe(plateauModel(counted, new Set(['Alnus', 'Betula', 'Corylus'])));
       }),
       { numRuns: 500 },
     );
